@@ -1,0 +1,15 @@
+import { ProjectNav } from '@/components/project-nav';
+import { pageProjectRole } from '@/lib/auth/page-user';
+import { getProject } from '@/lib/services/projects';
+
+export default async function ProjectLayout({ children, params }: { children: React.ReactNode; params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const { role } = await pageProjectRole(projectId);
+  const project = await getProject(projectId, role);
+  return (
+    <>
+      <ProjectNav projectId={projectId} projectName={project.name} />
+      <main className="min-w-0 flex-1 px-8 py-7">{children}</main>
+    </>
+  );
+}

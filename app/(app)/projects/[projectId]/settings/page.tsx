@@ -1,0 +1,16 @@
+import { ProjectSettingsForm } from '@/components/forms/project-settings-form';
+import { PageHeader } from '@/components/ui/panel';
+import { pageProjectRole } from '@/lib/auth/page-user';
+import { getProject } from '@/lib/services/projects';
+
+export default async function SettingsPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const { role } = await pageProjectRole(projectId);
+  const project = await getProject(projectId, role);
+  return (
+    <>
+      <PageHeader title="Settings" lead={role === 'owner' ? 'Name, description and removal of the project.' : 'Only owners change these settings.'} />
+      <ProjectSettingsForm project={{ id: project.id, name: project.name, description: project.description ?? '' }} canEdit={role === 'owner'} />
+    </>
+  );
+}

@@ -1,0 +1,14 @@
+import { TeamManager } from '@/components/forms/team-manager';
+import { PageHeader } from '@/components/ui/panel';
+import { pageProjectRole } from '@/lib/auth/page-user';
+
+export default async function TeamPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const { user, role } = await pageProjectRole(projectId);
+  return (
+    <>
+      <PageHeader title="Team" lead="Owners invite people and set roles. Editors upload, run and review; viewers read and export." />
+      <TeamManager projectId={projectId} myId={user.id} isOwner={role === 'owner'} />
+    </>
+  );
+}

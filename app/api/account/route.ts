@@ -1,0 +1,15 @@
+import { z } from 'zod';
+import { requireUser } from '@/lib/auth/access';
+import { json, jsonBody, route } from '@/lib/http/handler';
+import { getUser, setNotifyRunEmails } from '@/lib/services/users';
+
+const accountPatch = z.object({ notifyRunEmails: z.boolean() }).strict();
+
+export const GET = route(async (req) => json({ user: await requireUser(req) }));
+
+export const PATCH = route(async (req) => {
+  const user = await requireUser(req);
+  const input = accountPatch.parse(await jsonBody(req));
+  await setNotifyRunEmails(user.id, input.notifyRunEmails);
+  return json({ user: await getUser(user.id) });
+});

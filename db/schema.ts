@@ -1,0 +1,231 @@
+import { sql } from 'drizzle-orm';
+import {
+  bigint,
+  boolean,
+  double,
+  index,
+  int,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  primaryKey,
+  text,
+  timestamp,
+  varchar,
+} from 'drizzle-orm/mysql-core';
+
+const id = (name = 'id') => varchar(name, { length: 36 });
+const createdAt = () => timestamp('created_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
+
+export const SITE_ROLES = ['admin', 'member'] as const;
+export const PROJECT_ROLES = ['owner', 'editor', 'viewer'] as const;
+export const TRACER_KINDS = ['hi', 'co', 'hii', 'ob', 'other'] as const;
+export const CATALOG_STATUSES = ['queued', 'ingesting', 'ready', 'failed'] as const;
+export const JOB_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+
+export const users = mysqlTable('users', {
+  id: id().primaryKey(),
+  email: varchar('email', { length: 254 }).notNull().unique(),
+  name: varchar('name', { length: 120 }).notNull(),
+  passwordHash: varchar('password_hash', { length: 100 }).notNull(),
+  siteRole: mysqlEnum('site_role', SITE_ROLES).notNull().default('member'),
+  notifyRunEmails: boolean('notify_run_emails').notNull().default(true),
+  createdAt: createdAt(),
+});
+
+export const passwordResets = mysqlTable('password_resets', {
+  tokenHash: varchar('token_hash', { length: 64 }).primaryKey(),
+  userId: id('user_id')
+    .notNull()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  expiresAt: timestamp('expires_at').notNull(),
+  usedAt: timestamp('used_at'),
+  createdAt: createdAt(),
+});
+
+export const signInAttempts = mysqlTable(
+  'sign_in_attempts',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    email: varchar('email', { length: 254 }).notNull(),
+    succeeded: boolean('succeeded').notNull(),
+    at: timestamp('at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index('sign_in_attempts_email_at').on(t.email, t.at)],
+);
+
+export const projects = mysqlTable('projects', {
+  id: id().primaryKey(),
+  name: varchar('name', { length: 200 }).notNull(),
+  description: text('description'),
+  settings: json('settings').$type<Record<string, unknown>>().notNull().default({}),
+  createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at', { fsp: 3 })
+    .notNull()
+    .default(sql`CURRENT_TIMESTAMP(3)`)
+    .onUpdateNow(),
+});
+
+export const projectMembers = mysqlTable(
+  'project_members',
+  {
+    projectId: id('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    userId: id('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    role: mysqlEnum('role', PROJECT_ROLES).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.projectId, t.userId] }), index('members_user').on(t.userId)],
+);
+
+export const invitations = mysqlTable(
+  'invitations',
+  {
+    id: id().primaryKey(),
+    projectId: id('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    email: varchar('email', { length: 254 }).notNull(),
+    role: mysqlEnum('role', PROJECT_ROLES).notNull(),
+    tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+    invitedBy: id('invited_by').references(() => users.id, { onDelete: 'set null' }),
+    expiresAt: timestamp('expires_at').notNull(),
+    acceptedAt: timestamp('accepted_at'),
+    acceptedBy: id('accepted_by').references(() => users.id, { onDelete: 'set null' }),
+    revokedAt: timestamp('revoked_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('invitations_project').on(t.projectId)],
+);
+
+export const apiTokens = mysqlTable(
+  'api_tokens',
+  {
+    id: id().primaryKey(),
+    userId: id('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+    prefix: varchar('prefix', { length: 16 }).notNull(),
+    createdAt: createdAt(),
+    lastUsedAt: timestamp('last_used_at'),
+    revokedAt: timestamp('revoked_at'),
+  },
+  (t) => [index('api_tokens_user').on(t.userId)],
+);
+
+/** Append-only record of who did what (reviews, role changes, overrides). */
+export const auditLog = mysqlTable(
+  'audit_log',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    projectId: id('project_id').references(() => projects.id, { onDelete: 'cascade' }),
+    userId: id('user_id').references(() => users.id, { onDelete: 'set null' }),
+    action: varchar('action', { length: 64 }).notNull(),
+    subject: varchar('subject', { length: 128 }),
+    detail: json('detail').$type<Record<string, unknown>>(),
+    at: timestamp('at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index('audit_project_at').on(t.projectId, t.at)],
+);
+
+/** Background work claimed by the worker with SELECT … FOR UPDATE SKIP LOCKED. */
+export const jobs = mysqlTable(
+  'jobs',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    kind: varchar('kind', { length: 32 }).notNull(),
+    projectId: id('project_id').references(() => projects.id, { onDelete: 'cascade' }),
+    payload: json('payload').$type<Record<string, unknown>>().notNull(),
+    status: mysqlEnum('status', JOB_STATUSES).notNull().default('queued'),
+    progress: double('progress').notNull().default(0),
+    attempts: int('attempts').notNull().default(0),
+    error: text('error'),
+    lockedBy: varchar('locked_by', { length: 64 }),
+    heartbeatAt: timestamp('heartbeat_at', { fsp: 3 }),
+    cancelRequested: boolean('cancel_requested').notNull().default(false),
+    createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    startedAt: timestamp('started_at', { fsp: 3 }),
+    finishedAt: timestamp('finished_at', { fsp: 3 }),
+  },
+  (t) => [index('jobs_status_created').on(t.status, t.createdAt)],
+);
+
+export const catalogs = mysqlTable(
+  'catalogs',
+  {
+    id: id().primaryKey(),
+    projectId: id('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 200 }).notNull(),
+    kind: mysqlEnum('kind', TRACER_KINDS).notNull(),
+    status: mysqlEnum('status', CATALOG_STATUSES).notNull().default('queued'),
+    progress: double('progress').notNull().default(0),
+    rowCount: int('row_count').notNull().default(0),
+    rejectedCount: int('rejected_count').notNull().default(0),
+    error: text('error'),
+    fileName: varchar('file_name', { length: 255 }).notNull(),
+    filePath: varchar('file_path', { length: 500 }).notNull(),
+    fileBytes: bigint('file_bytes', { mode: 'number', unsigned: true }).notNull(),
+    format: varchar('format', { length: 16 }),
+    policy: mysqlEnum('policy', ['skip-bad-rows', 'reject-file']).notNull().default('skip-bad-rows'),
+    mapping: json('mapping').$type<Record<string, unknown>>(),
+    columns: json('columns').$type<string[]>(),
+    jobId: bigint('job_id', { mode: 'number', unsigned: true }),
+    createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    readyAt: timestamp('ready_at', { fsp: 3 }),
+  },
+  (t) => [index('catalogs_project').on(t.projectId, t.createdAt)],
+);
+
+/** Rows rejected by validation, with the 1-based line of the file as uploaded. */
+export const catalogRejects = mysqlTable(
+  'catalog_rejects',
+  {
+    catalogId: id('catalog_id')
+      .notNull()
+      .references(() => catalogs.id, { onDelete: 'cascade' }),
+    line: int('line').notNull(),
+    reason: varchar('reason', { length: 500 }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.catalogId, t.line] })],
+);
+
+/** Canonical columns of every source: l, b in degrees, v in km/s (LSR, radio convention). */
+export const catalogRows = mysqlTable(
+  'catalog_rows',
+  {
+    catalogId: id('catalog_id').notNull(),
+    row: int('row').notNull(),
+    line: int('line').notNull(),
+    name: varchar('name', { length: 128 }),
+    l: double('l').notNull(),
+    b: double('b').notNull(),
+    v: double('v'),
+    radiusArcsec: double('radius_arcsec'),
+    posErrArcsec: double('pos_err_arcsec'),
+    vErrKms: double('v_err_kms'),
+    lineWidthKms: double('line_width_kms'),
+    distKpc: double('dist_kpc'),
+    distErrKpc: double('dist_err_kpc'),
+    original: json('original').$type<string[]>(),
+  },
+  (t) => [
+    primaryKey({ columns: [t.catalogId, t.row] }),
+    index('rows_l').on(t.catalogId, t.l),
+    index('rows_b').on(t.catalogId, t.b),
+    index('rows_v').on(t.catalogId, t.v),
+    index('rows_name').on(t.catalogId, t.name),
+    index('rows_radius').on(t.catalogId, t.radiusArcsec),
+    index('rows_line_width').on(t.catalogId, t.lineWidthKms),
+    index('rows_dist').on(t.catalogId, t.distKpc),
+  ],
+);

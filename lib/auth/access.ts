@@ -1,0 +1,79 @@
+import { getServerSession } from 'next-auth';
+import { headers } from 'next/headers';
+import { HttpError, forbidden, notFound, unauthenticated } from '@/lib/http/errors';
+import { roleInProject } from '@/lib/services/projects';
+import { userForToken } from '@/lib/services/tokens';
+import { getUser, type PublicUser } from '@/lib/services/users';
+import { authOptions } from './options';
+import { roleAtLeast, type ProjectRole } from './roles';
+
+export type Caller = { user: PublicUser; via: 'session' | 'token' };
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * A cookie-authenticated request that changes state must come from our own pages: browsers send
+ * Origin (or Sec-Fetch-Site) on cross-site requests, which we refuse. Tokens are not sent by
+ * browsers on their own, so bearer requests need no such check.
+ */
+function assertSameOrigin(h: Headers, method: string) {
+  if (SAFE_METHODS.has(method)) return;
+  const site = h.get('sec-fetch-site');
+  if (site && site !== 'same-origin' && site !== 'none') {
+    throw new HttpError(403, 'cross_site', 'Cross-site requests may not change data.');
+  }
+  const origin = h.get('origin');
+  const host = h.get('x-forwarded-host') ?? h.get('host');
+  if (origin && host && new URL(origin).host !== host) {
+    throw new HttpError(403, 'cross_site', 'Cross-site requests may not change data.');
+  }
+}
+
+/** The signed-in caller (session cookie or `Authorization: Bearer` token), or null. */
+export async function currentCaller(method = 'GET'): Promise<Caller | null> {
+  const h = await headers();
+  const auth = h.get('authorization');
+  if (auth?.toLowerCase().startsWith('bearer ')) {
+    const user = await userForToken(auth.slice(7).trim());
+    return user ? { user, via: 'token' } : null;
+  }
+  const session = await getServerSession(authOptions);
+  const id = (session?.user as { id?: string } | undefined)?.id;
+  if (!id) return null;
+  const user = await getUser(id);
+  if (!user) return null;
+  assertSameOrigin(h, method);
+  return { user, via: 'session' };
+}
+
+/** 401 unless signed in. */
+export async function requireUser(req?: Request): Promise<PublicUser> {
+  const caller = await currentCaller(req?.method);
+  if (!caller) throw unauthenticated();
+  return caller.user;
+}
+
+/** 401 unless signed in, 403 unless a site admin. */
+export async function requireSiteAdmin(req?: Request): Promise<PublicUser> {
+  const user = await requireUser(req);
+  if (user.siteRole !== 'admin') throw new HttpError(403, 'forbidden', 'Only site admins may do this.');
+  return user;
+}
+
+/**
+ * The one access check of every project handler and action: 401 when not signed in, 404 when
+ * the caller is not a member (so non-members cannot learn a project exists), 403 when the role
+ * is lower than `min`.
+ */
+export async function requireProjectRole(
+  projectId: string,
+  min: ProjectRole,
+  req?: Request,
+  what?: string,
+): Promise<{ user: PublicUser; role: ProjectRole }> {
+  const user = await requireUser(req);
+  const role = await roleInProject(projectId, user.id);
+  if (!role) throw notFound('Project');
+  if (!roleAtLeast(role, min)) throw forbidden(what);
+  return { user, role };
+}

@@ -1,0 +1,2 @@
+// Job kinds register themselves here; the worker imports this once.
+export {};

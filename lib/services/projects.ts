@@ -1,0 +1,107 @@
+import { and, asc, eq, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import { db } from '@/db/client';
+import { auditLog, projectMembers, projects } from '@/db/schema';
+import { newId } from '@/lib/auth/secrets';
+import type { ProjectRole } from '@/lib/auth/roles';
+import { notFound } from '@/lib/http/errors';
+
+export const projectNameSchema = z.string().trim().min(1, 'Give the project a name.').max(200);
+export const createProjectSchema = z.object({
+  name: projectNameSchema,
+  description: z.string().trim().max(2000).optional(),
+});
+export const updateProjectSchema = z
+  .object({
+    name: projectNameSchema.optional(),
+    description: z.string().trim().max(2000).nullable().optional(),
+    settings: z.record(z.string(), z.unknown()).optional(),
+  })
+  .strict();
+
+export type ProjectSummary = {
+  id: string;
+  name: string;
+  description: string | null;
+  role: ProjectRole;
+  createdAt: string;
+  updatedAt: string;
+  settings: Record<string, unknown>;
+};
+
+const toSummary = (p: typeof projects.$inferSelect, role: ProjectRole): ProjectSummary => ({
+  id: p.id,
+  name: p.name,
+  description: p.description,
+  role,
+  settings: p.settings ?? {},
+  createdAt: p.createdAt.toISOString(),
+  updatedAt: p.updatedAt.toISOString(),
+});
+
+export async function listProjectsFor(userId: string): Promise<ProjectSummary[]> {
+  const rows = await db
+    .select({ p: projects, role: projectMembers.role })
+    .from(projectMembers)
+    .innerJoin(projects, eq(projects.id, projectMembers.projectId))
+    .where(eq(projectMembers.userId, userId))
+    .orderBy(asc(projects.name));
+  return rows.map((r) => toSummary(r.p, r.role));
+}
+
+export async function createProject(
+  userId: string,
+  input: z.infer<typeof createProjectSchema>,
+): Promise<ProjectSummary> {
+  const id = newId();
+  await db.transaction(async (tx) => {
+    await tx.insert(projects).values({ id, name: input.name, description: input.description ?? null, createdBy: userId, settings: {} });
+    await tx.insert(projectMembers).values({ projectId: id, userId, role: 'owner' });
+    await tx.insert(auditLog).values({ projectId: id, userId, action: 'project.create', subject: id });
+  });
+  return getProject(id, 'owner');
+}
+
+export async function getProject(id: string, role: ProjectRole): Promise<ProjectSummary> {
+  const [p] = await db.select().from(projects).where(eq(projects.id, id));
+  if (!p) throw notFound('Project');
+  return toSummary(p, role);
+}
+
+/** The caller's role in a project, or null when not a member (or no such project). */
+export async function roleInProject(projectId: string, userId: string): Promise<ProjectRole | null> {
+  const [m] = await db
+    .select({ role: projectMembers.role })
+    .from(projectMembers)
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId)));
+  return m?.role ?? null;
+}
+
+export async function updateProject(
+  id: string,
+  userId: string,
+  input: z.infer<typeof updateProjectSchema>,
+  role: ProjectRole,
+): Promise<ProjectSummary> {
+  const set: Partial<typeof projects.$inferInsert> = {};
+  if (input.name !== undefined) set.name = input.name;
+  if (input.description !== undefined) set.description = input.description;
+  if (input.settings !== undefined) {
+    const current = await getProject(id, role);
+    set.settings = { ...current.settings, ...input.settings };
+  }
+  if (Object.keys(set).length) {
+    await db.update(projects).set(set).where(eq(projects.id, id));
+    await db.insert(auditLog).values({ projectId: id, userId, action: 'project.update', subject: id, detail: { fields: Object.keys(set) } });
+  }
+  return getProject(id, role);
+}
+
+export async function deleteProject(id: string): Promise<void> {
+  await db.delete(projects).where(eq(projects.id, id));
+}
+
+export async function countProjects(): Promise<number> {
+  const [r] = await db.select({ n: sql<number>`count(*)` }).from(projects);
+  return Number(r?.n ?? 0);
+}

@@ -1,0 +1,186 @@
+// Shared set-up of `npm start` and `npm test`: everything a fresh machine lacks is installed
+// here (npm packages, MariaDB, Chromium for tests), then the private services are started.
+// Plain Node with no dependencies, because it runs before `npm install` has.
+import { spawn, spawnSync, execFileSync } from 'node:child_process';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import net from 'node:net';
+import { fileURLToPath } from 'node:url';
+import { dbProfile, startDb } from '../db/server.mjs';
+
+export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const bin = (name) => path.join(root, 'node_modules', '.bin', name);
+
+/** Installs npm packages when node_modules is missing or older than the lock file. */
+export function ensureNpmPackages() {
+  const lock = path.join(root, 'package-lock.json');
+  const marker = path.join(root, 'node_modules', '.package-lock.json');
+  const stale =
+    !fs.existsSync(marker) ||
+    (fs.existsSync(lock) && fs.statSync(lock).mtimeMs > fs.statSync(marker).mtimeMs + 1000);
+  if (!stale) return;
+  console.log('[setup] installing npm packages …');
+  const args = fs.existsSync(lock) ? ['ci', '--no-audit', '--no-fund'] : ['install', '--no-audit', '--no-fund'];
+  execFileSync('npm', args, { cwd: root, stdio: 'inherit' });
+}
+
+/** Debian's Chromium for the end-to-end tests (installed as root with apt-get when missing). */
+export function ensureChromium() {
+  if (fs.existsSync('/usr/bin/chromium')) return '/usr/bin/chromium';
+  if (process.getuid?.() !== 0) {
+    throw new Error('Chromium is missing: install it with sudo apt-get install -y chromium');
+  }
+  console.log('[setup] installing chromium with apt-get …');
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  execFileSync('apt-get', ['update'], { stdio: 'inherit', env });
+  execFileSync('apt-get', ['install', '-y', '--no-install-recommends', 'chromium'], { stdio: 'inherit', env });
+  return '/usr/bin/chromium';
+}
+
+/** Local secrets, generated on first start and kept (git-ignored) with the profile's data. */
+function localSecret(dir) {
+  const file = path.join(dir, 'secrets.json');
+  if (!fs.existsSync(file)) {
+    fs.mkdirSync(dir, { recursive: true });
+    fs.writeFileSync(file, JSON.stringify({ NEXTAUTH_SECRET: crypto.randomBytes(32).toString('base64url') }), { mode: 0o600 });
+  }
+  return JSON.parse(fs.readFileSync(file, 'utf8'));
+}
+
+/** Ports and directories of a profile; `test` never shares anything with `dev`. */
+export function profileSettings(profile) {
+  const isTest = profile === 'test';
+  const db = dbProfile(profile);
+  const appPort = Number(isTest ? (process.env.LANEWISE_TEST_PORT ?? 3100) : (process.env.PORT ?? 3000));
+  const mailPort = Number(isTest ? (process.env.LANEWISE_TEST_MAIL_PORT ?? 2625) : (process.env.MAIL_CATCHER_PORT ?? 2525));
+  const url = `http://127.0.0.1:${appPort}`;
+  const secrets = localSecret(db.dir);
+  const env = {
+    ...process.env,
+    DATABASE_URL: db.url,
+    NEXTAUTH_URL: url,
+    NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? secrets.NEXTAUTH_SECRET,
+    SMTP_URL: `smtp://127.0.0.1:${mailPort}`,
+    MAIL_CATCHER_PORT: String(mailPort),
+    MAIL_CATCHER_DIR: path.join(db.dir, 'mail'),
+    LANEWISE_DATA_DIR: path.join(db.dir, 'files'),
+    LANEWISE_MODE: process.env.LANEWISE_MODE ?? 'local',
+    NEXT_DIST_DIR: isTest ? '.next-test' : '.next',
+    NEXT_TELEMETRY_DISABLED: '1',
+  };
+  return { profile, db, appPort, mailPort, url, env };
+}
+
+export async function startDatabase(profile) {
+  return startDb(profile);
+}
+
+export function runStep(label, cmd, args, env) {
+  console.log(`[${label}] ${[path.basename(cmd), ...args].join(' ')}`);
+  const r = spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env });
+  return r.status ?? 1;
+}
+
+export function migrate(env) {
+  if (runStep('db', bin('tsx'), ['db/migrate.ts'], env) !== 0) throw new Error('migrations failed');
+}
+
+function newestMtime(dir) {
+  let newest = 0;
+  if (!fs.existsSync(dir)) return 0;
+  for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
+    const p = path.join(dir, e.name);
+    newest = Math.max(newest, e.isDirectory() ? newestMtime(p) : fs.statSync(p).mtimeMs);
+  }
+  return newest;
+}
+
+/** Builds the app when there is no build yet or a source file is newer than it. */
+export function buildIfStale(env) {
+  const distDir = path.join(root, env.NEXT_DIST_DIR);
+  const buildId = path.join(distDir, 'BUILD_ID');
+  const built = fs.existsSync(buildId) ? fs.statSync(buildId).mtimeMs : 0;
+  const sources = Math.max(
+    ...['app', 'components', 'lib', 'db', 'seed'].map((d) => newestMtime(path.join(root, d))),
+    ...['package-lock.json', 'next.config.ts', 'postcss.config.mjs'].map((f) =>
+      fs.existsSync(path.join(root, f)) ? fs.statSync(path.join(root, f)).mtimeMs : 0,
+    ),
+  );
+  if (built > sources) return;
+  if (runStep('build', bin('next'), ['build'], env) !== 0) throw new Error('next build failed');
+}
+
+const children = new Set();
+
+/** Starts a long-running service whose output is prefixed with its name. */
+export function startService(name, cmd, args, env) {
+  const child = spawn(cmd, args, { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
+  const prefix = (stream, out) => {
+    let buf = '';
+    stream.on('data', (d) => {
+      buf += d.toString();
+      const lines = buf.split('\n');
+      buf = lines.pop();
+      for (const l of lines) out.write(`[${name}] ${l}\n`);
+    });
+  };
+  prefix(child.stdout, process.stdout);
+  prefix(child.stderr, process.stderr);
+  children.add(child);
+  child.on('exit', () => children.delete(child));
+  return child;
+}
+
+export function stopServices() {
+  for (const c of children) {
+    try {
+      process.kill(-c.pid, 'SIGTERM');
+    } catch {
+      /* already gone */
+    }
+  }
+}
+
+export function waitForPort(port, timeoutMs = 60_000) {
+  const deadline = Date.now() + timeoutMs;
+  return new Promise((resolve, reject) => {
+    const attempt = () => {
+      const s = net.connect({ host: '127.0.0.1', port }, () => {
+        s.destroy();
+        resolve();
+      });
+      s.on('error', () => {
+        if (Date.now() > deadline) reject(new Error(`nothing answered on port ${port}`));
+        else setTimeout(attempt, 250);
+      });
+    };
+    attempt();
+  });
+}
+
+export async function waitForHttp(url, timeoutMs = 90_000) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    try {
+      const r = await fetch(url);
+      if (r.status < 500) return;
+    } catch {
+      /* not yet */
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`${url} did not answer`);
+}
+
+/** Starts the mail catcher, the worker and the web server of a profile. */
+export async function startAppServices(settings) {
+  const { env, appPort, mailPort, url } = settings;
+  startService('mail', bin('tsx'), ['lib/mail/catcher-main.ts'], env);
+  await waitForPort(mailPort);
+  startService('worker', bin('tsx'), ['lib/jobs/main.ts'], env);
+  startService('web', bin('next'), ['start', '-H', '127.0.0.1', '-p', String(appPort)], env);
+  await waitForHttp(`${url}/api/health`);
+}
+
+export { bin };

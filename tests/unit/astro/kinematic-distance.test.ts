@@ -1,0 +1,299 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import {
+  KINEMATIC_FLAG_BITS,
+  flagsFromBits,
+  kinematicDistance,
+  kinematicDistancesBulk,
+  monteCarloDistance,
+  monteCarloDistancesBulk,
+  resolveAmbiguity,
+  vLsrAtKms,
+} from '@/lib/astro/kinematic-distance';
+import { makeRotationCurve, type RotationCurveName } from '@/lib/astro/rotation-curves';
+import { deriveSeed, makeRng } from '@/lib/stats/rng';
+
+const D = Math.PI / 180;
+const MODEL_CURVES: RotationCurveName[] = ['flat', 'brand-blitz-1993', 'reid-2014', 'reid-2019'];
+
+describe('flat rotation curve', () => {
+  const flat = makeRotationCurve('flat', { R0Kpc: 8.5, theta0Kms: 220 });
+
+  it('matches the closed form R = R0 Θ0 sin l / (Θ0 sin l + v) to 1e-6 kpc', () => {
+    // closed form for a flat curve (SCIENCE.md §4)
+    let checked = 0;
+    for (let l = 1; l < 360; l += 7) {
+      for (let v = -200; v <= 200; v += 9) {
+        const s = Math.sin(l * D);
+        const R = (8.5 * 220 * s) / (220 * s + v);
+        const kd = kinematicDistance(l, 0, v, flat);
+        if (kd.flags.includes('no-solution') || kd.flags.includes('beyond-terminal')) {
+          // then the closed-form R is off the sight line or beyond the documented 1000 kpc limit
+          const onLine =
+            R > 0 && R <= 1000 && (Math.cos(l * D) > 0 ? R >= 8.5 * Math.abs(s) : R >= 8.5);
+          expect(onLine).toBe(false);
+          continue;
+        }
+        expect(kd.RKpc).not.toBeNull();
+        expect(Math.abs((kd.RKpc as number) - R)).toBeLessThan(1e-6);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(1000);
+  });
+
+  it('has v_t = 110 km/s and d_t = 7.36 kpc at l = 30°', () => {
+    // SCIENCE.md §4: l = 30°, R0 = 8.5, Θ0 = 220 → v_t = Θ0 (1 − sin l) = 110 km/s, d_t = R0 cos l
+    const kd = kinematicDistance(30, 0, 110, flat);
+    expect(kd.tangentKpc).toBeCloseTo(7.36, 2);
+    expect(kd.nearKpc).toBeCloseTo(7.361, 3);
+    expect(kd.farKpc).toBeCloseTo(7.361, 3);
+    expect(kd.RKpc).toBeCloseTo(4.25, 6);
+    expect(vLsrAtKms(30, 0, 8.5 * Math.cos(30 * D), flat)).toBeCloseTo(110, 9);
+  });
+
+  it('places velocities beyond the terminal velocity at the tangent point', () => {
+    // SCIENCE.md §4: beyond-terminal velocities are flagged and placed at the tangent point
+    const kd = kinematicDistance(30, 0, 125, flat);
+    expect(kd.flags).toContain('beyond-terminal');
+    expect(kd.nearKpc).toBe(kd.tangentKpc);
+    expect(kd.farKpc).toBe(kd.tangentKpc);
+    expect(kd.RKpc).toBeCloseTo(4.25, 12);
+    expect(kinematicDistance(30, 0, 105, flat).flags).toContain('near-tangent');
+  });
+
+  it('reports one root, as far, outside the solar circle', () => {
+    // documented API: single root in farKpc, nearKpc null, flag 'outer-galaxy'
+    const kd = kinematicDistance(120, 0, -40, flat);
+    expect(kd.flags).toEqual(['outer-galaxy']);
+    expect(kd.nearKpc).toBeNull();
+    expect(kd.tangentKpc).toBeNull();
+    expect(vLsrAtKms(120, 0, kd.farKpc as number, flat)).toBeCloseTo(-40, 9);
+    const inner = kinematicDistance(40, 0, -20, flat);
+    expect(inner.flags).toContain('outer-galaxy');
+    expect(inner.nearKpc).toBeNull();
+    expect(inner.farKpc as number).toBeGreaterThan(2 * 8.5 * Math.cos(40 * D));
+  });
+
+  it('flags forbidden velocities and unreliable longitudes', () => {
+    // circular rotation: v > 0 is impossible in the second quadrant; l = 0 carries no distance
+    expect(kinematicDistance(120, 0, 30, flat).flags).toContain('no-solution');
+    expect(kinematicDistance(120, 0, 30, flat).farKpc).toBeNull();
+    expect(kinematicDistance(0, 0, 10, flat).flags).toEqual([
+      'unreliable-longitude',
+      'no-solution',
+    ]);
+    expect(kinematicDistance(185, 0, -3, flat).flags).toContain('unreliable-longitude');
+    expect(kinematicDistance(355, 0, -3, flat).flags).toContain('unreliable-longitude');
+    expect(kinematicDistance(60, 0, 20, flat).flags).toEqual([]);
+  });
+
+  it('divides in-plane distances by cos b', () => {
+    // SCIENCE.md §4: line-of-sight distance = in-plane distance / cos b
+    const b = 3;
+    const v = vLsrAtKms(40, b, 3, flat);
+    const kd = kinematicDistance(40, b, v, flat);
+    expect(kd.nearKpc).toBeCloseTo(3, 9);
+    const dPlane = 3 * Math.cos(b * D);
+    expect(kd.RKpc).toBeCloseTo(
+      Math.sqrt(8.5 ** 2 + dPlane ** 2 - 2 * 8.5 * dPlane * Math.cos(40 * D)),
+      9,
+    );
+  });
+});
+
+describe('every curve', () => {
+  it('round-trips distance → v_LSR → distance across the disc, choosing near/far correctly', () => {
+    // brute-force oracle: the forward model v_LSR(d) of SCIENCE.md §4
+    for (const name of MODEL_CURVES) {
+      const curve = makeRotationCurve(name);
+      const R0 = curve.R0Kpc;
+      fc.assert(
+        fc.property(
+          fc.integer({ min: 0, max: 3_599_999 }).map((x) => x / 10_000),
+          fc.integer({ min: -15_000, max: 15_000 }).map((x) => x / 10_000),
+          fc.integer({ min: 500, max: 250_000 }).map((x) => x / 10_000),
+          (l, b, d) => {
+            const s = Math.sin(l * D);
+            const c = Math.cos(l * D);
+            fc.pre(Math.abs(s) > 0.02);
+            const dPlane = d * Math.cos(b * D);
+            const dt = R0 * c;
+            fc.pre(c <= 0 || Math.abs(dPlane - dt) > 0.05);
+            const R = Math.sqrt(R0 * R0 + dPlane * dPlane - 2 * R0 * dPlane * c);
+            fc.pre(Math.abs(R - R0) > 1e-3);
+            const v = vLsrAtKms(l, b, d, curve);
+            const kd = kinematicDistance(l, b, v, curve);
+            expect(kd.RKpc as number).toBeCloseTo(R, 7);
+            if (R > R0) {
+              expect(kd.flags).toContain('outer-galaxy');
+              expect(kd.nearKpc).toBeNull();
+              expect(Math.abs((kd.farKpc as number) - d)).toBeLessThan(1e-6 * Math.max(1, d));
+            } else {
+              const root = dPlane < dt ? kd.nearKpc : kd.farKpc;
+              expect(Math.abs((root as number) - d)).toBeLessThan(1e-6 * Math.max(1, d));
+            }
+          },
+        ),
+        { numRuns: 400 },
+      );
+    }
+  });
+
+  it('bulk results equal scalar results', () => {
+    // the scalar solver (exact bisection) is the oracle for the tabulated bulk solver
+    const rng = makeRng(11);
+    const n = 3000;
+    const l = Float64Array.from({ length: n }, () => rng.next() * 360);
+    const b = Float64Array.from({ length: n }, () => rng.next() * 4 - 2);
+    const v = Float64Array.from({ length: n }, () => rng.next() * 300 - 150);
+    for (const name of MODEL_CURVES) {
+      const curve = makeRotationCurve(name);
+      const bulk = kinematicDistancesBulk(l, b, v, curve);
+      for (let i = 0; i < n; i++) {
+        const s = kinematicDistance(l[i], b[i], v[i], curve);
+        expect(flagsFromBits(bulk.flags[i])).toEqual(s.flags);
+        for (const [col, val] of [
+          [bulk.RKpc[i], s.RKpc],
+          [bulk.nearKpc[i], s.nearKpc],
+          [bulk.farKpc[i], s.farKpc],
+          [bulk.tangentKpc[i], s.tangentKpc],
+        ] as const) {
+          if (val === null) expect(col).toBeNaN();
+          else expect(Math.abs(col - val)).toBeLessThan(1e-9 * Math.max(1, val));
+        }
+      }
+    }
+  });
+
+  it('works for a tabulated curve', () => {
+    // brute-force oracle: forward model on the same table
+    const curve = makeRotationCurve('table', {
+      R0Kpc: 8.3,
+      table: [
+        [1, 180],
+        [4, 215],
+        [8.3, 230],
+        [20, 235],
+      ],
+    });
+    const v = vLsrAtKms(50, 0, 9, curve);
+    expect(kinematicDistance(50, 0, v, curve).farKpc).toBeCloseTo(9, 8);
+    expect(Array.from(KINEMATIC_FLAG_BITS ? Object.values(KINEMATIC_FLAG_BITS) : [])).toEqual([
+      1, 2, 4, 8, 16,
+    ]);
+  });
+});
+
+describe('Monte Carlo distances', () => {
+  const curve = makeRotationCurve('reid-2014');
+
+  it('is reproducible for a seed and differs between seeds', () => {
+    // seeded reproducibility (common practice)
+    const a = monteCarloDistance(35, 0.1, 60, 3, curve, { draws: 500, seed: 42 });
+    const b = monteCarloDistance(35, 0.1, 60, 3, curve, { draws: 500, seed: 42 });
+    const c = monteCarloDistance(35, 0.1, 60, 3, curve, { draws: 500, seed: 43 });
+    expect(b).toEqual(a);
+    expect(c.near?.medianKpc).not.toBe(a.near?.medianKpc);
+    expect(a.sigmaTotalKms).toBeCloseTo(Math.hypot(3, 7), 12);
+  });
+
+  it('gives sane intervals that match linear error propagation', () => {
+    // first-order propagation: σ_d ≈ |∂d/∂v| σ_v (common practice)
+    const l = 35;
+    const v = 50;
+    const sigma = Math.hypot(2, 7);
+    const mc = monteCarloDistance(l, 0, v, 2, curve, { draws: 4000, seed: 7 });
+    const kd = kinematicDistance(l, 0, v, curve);
+    const h = 0.01;
+    const slope =
+      ((kinematicDistance(l, 0, v + h, curve).nearKpc as number) -
+        (kinematicDistance(l, 0, v - h, curve).nearKpc as number)) /
+      (2 * h);
+    const near = mc.near!;
+    expect(near.loKpc).toBeLessThan(near.medianKpc);
+    expect(near.medianKpc).toBeLessThan(near.hiKpc);
+    expect(Math.abs(near.medianKpc - (kd.nearKpc as number))).toBeLessThan(0.05);
+    expect((near.hiKpc - near.loKpc) / 2).toBeGreaterThan(0.8 * Math.abs(slope) * sigma);
+    expect((near.hiKpc - near.loKpc) / 2).toBeLessThan(1.25 * Math.abs(slope) * sigma);
+    expect(near.fraction).toBe(1);
+    expect(mc.far!.medianKpc).toBeGreaterThan(near.medianKpc);
+  });
+
+  it('collapses to the scalar solution with zero dispersion', () => {
+    // no dispersion → every draw equals the point solution
+    const mc = monteCarloDistance(35, 0, 50, 0, curve, { draws: 20, sigmaStreamKms: 0 });
+    const kd = kinematicDistance(35, 0, 50, curve);
+    expect(mc.near!.medianKpc).toBeCloseTo(kd.nearKpc as number, 9);
+    expect(mc.near!.loKpc).toBeCloseTo(kd.nearKpc as number, 9);
+    expect(mc.far!.hiKpc).toBeCloseTo(kd.farKpc as number, 9);
+  });
+
+  it('bulk equals the single-source call with the derived seed', () => {
+    // documented seeding: source i uses deriveSeed(seed, i)
+    const l = Float64Array.of(35, 120, 300);
+    const b = Float64Array.of(0, 0.5, -0.2);
+    const v = Float64Array.of(50, -60, -30);
+    const bulk = monteCarloDistancesBulk(l, b, v, 2, curve, { draws: 300, seed: 9 });
+    for (let i = 0; i < 3; i++) {
+      const one = monteCarloDistance(l[i], b[i], v[i], 2, curve, {
+        draws: 300,
+        seed: deriveSeed(9, i),
+      });
+      expect(bulk.farMedianKpc[i]).toBe(one.far?.medianKpc);
+      expect(bulk.farFraction[i]).toBe(one.far?.fraction);
+      if (one.near) expect(bulk.nearLoKpc[i]).toBe(one.near.loKpc);
+      else expect(bulk.nearLoKpc[i]).toBeNaN();
+    }
+  });
+});
+
+describe('near/far ambiguity', () => {
+  it('follows the documented rules', () => {
+    // SCIENCE.md §4 rules: independent distance first, else latitude with 2.5 scale heights
+    expect(resolveAmbiguity({ nearKpc: null, farKpc: null, bDeg: 0 }).choice).toBe('unresolved');
+    expect(resolveAmbiguity({ nearKpc: null, farKpc: 12, bDeg: 0 })).toMatchObject({
+      choice: 'single',
+      distKpc: 12,
+    });
+    expect(resolveAmbiguity({ nearKpc: 7.36, farKpc: 7.36, bDeg: 0 })).toMatchObject({
+      choice: 'tangent',
+      distKpc: 7.36,
+    });
+    expect(
+      resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: 0, independentDistKpc: 10 }),
+    ).toMatchObject({ choice: 'far', distKpc: 11 });
+    expect(
+      resolveAmbiguity({
+        nearKpc: 3,
+        farKpc: 11,
+        bDeg: 0,
+        independentDistKpc: 4,
+        independentErrKpc: 0.5,
+      }),
+    ).toMatchObject({ choice: 'near', distKpc: 3 });
+    expect(
+      resolveAmbiguity({
+        nearKpc: 3,
+        farKpc: 11,
+        bDeg: 0,
+        independentDistKpc: 7.2,
+        independentErrKpc: 2,
+      }).choice,
+    ).toBe('unresolved');
+    // far root at 11 kpc and b = 1° → |z| = 0.192 kpc > 2.5 × 0.06 kpc
+    const lat = resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: 1 });
+    expect(lat).toMatchObject({ choice: 'near', distKpc: 3 });
+    expect(lat.reason).toContain('0.192');
+    expect(resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: 0.5 }).choice).toBe('unresolved');
+    expect(
+      resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: 0.5, scaleHeightKpc: 0.03 }).choice,
+    ).toBe('near');
+    expect(resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: -1, maxScaleHeights: 4 }).choice).toBe(
+      'unresolved',
+    );
+    expect(() => resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: 0, scaleHeightKpc: 0 })).toThrow(
+      'scaleHeightKpc',
+    );
+  });
+});

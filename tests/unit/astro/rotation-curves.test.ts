@@ -1,0 +1,123 @@
+import { describe, expect, it } from 'vitest';
+import { ROTATION_CURVE_PRESETS, makeRotationCurve } from '@/lib/astro/rotation-curves';
+
+describe('rotation curves', () => {
+  it('reproduces Θ(R0) of each published model', () => {
+    // Brand & Blitz 1993 (SCIENCE.md §3): Θ(R0) = 220 (a1 + a3) = 223.16 km/s
+    expect(makeRotationCurve('brand-blitz-1993').theta0Kms).toBeCloseTo(223.16, 2);
+    // Reid et al. 2014 URC constants: Θ(R0) = 241.0 km/s (SCIENCE.md §3)
+    expect(makeRotationCurve('reid-2014').theta0Kms).toBeCloseTo(241.0, 1);
+    // Reid et al. 2019 form (Wenger et al. refit): Θ(R0) ≈ 237.0 km/s (SCIENCE.md §3)
+    expect(makeRotationCurve('reid-2019').theta0Kms).toBeCloseTo(237.0, 0);
+    // IAU 1985 values R0 = 8.5 kpc, Θ0 = 220 km/s (common practice)
+    const flat = makeRotationCurve('flat');
+    expect(flat.R0Kpc).toBe(8.5);
+    expect(flat.theta0Kms).toBe(220);
+    expect(flat.thetaKms(3)).toBe(220);
+  });
+
+  it('uses the published constants and R0 of each model', () => {
+    // SCIENCE.md §3
+    expect(makeRotationCurve('brand-blitz-1993').params).toMatchObject({
+      a1: 1.0074,
+      a2: 0.0382,
+      a3: 0.00698,
+      theta0Kms: 220,
+    });
+    expect(makeRotationCurve('reid-2014').R0Kpc).toBe(8.34);
+    expect(makeRotationCurve('reid-2014').params).toMatchObject({ a1: 241, a2: 0.9, a3: 1.46 });
+    expect(makeRotationCurve('reid-2019').R0Kpc).toBe(8.166);
+    expect(makeRotationCurve('reid-2019').params).toMatchObject({ a2: 0.977, a3: 1.623 });
+  });
+
+  it('follows the Brand & Blitz formula at other radii', () => {
+    // Brand & Blitz 1993: Θ = Θ0 (a1 (R/R0)^a2 + a3)
+    const c = makeRotationCurve('brand-blitz-1993');
+    expect(c.thetaKms(4)).toBeCloseTo(220 * (1.0074 * (4 / 8.5) ** 0.0382 + 0.00698), 10);
+  });
+
+  it('applies overrides as documented', () => {
+    // documented override semantics
+    expect(makeRotationCurve('flat', { theta0Kms: 240, R0Kpc: 8.3 }).theta0Kms).toBe(240);
+    const bb = makeRotationCurve('brand-blitz-1993', { theta0Kms: 230 });
+    expect(bb.theta0Kms).toBeCloseTo(230 * (1.0074 + 0.00698), 10);
+    const r14 = makeRotationCurve('reid-2014', { theta0Kms: 236 });
+    expect(r14.theta0Kms).toBeCloseTo(236, 10);
+    expect(r14.thetaKms(12) / makeRotationCurve('reid-2014').thetaKms(12)).toBeCloseTo(
+      236 / 240.9986745581,
+      8,
+    );
+    expect(makeRotationCurve('reid-2019', { theta0Kms: 230 }).theta0Kms).toBeCloseTo(230, 10);
+    expect(makeRotationCurve('reid-2014', { R0Kpc: 8.0 }).theta0Kms).toBeCloseTo(
+      makeRotationCurve('reid-2014').theta0Kms,
+      10,
+    );
+    expect(makeRotationCurve('reid-2014', { params: { a1: 230 } }).params.a1).toBe(230);
+  });
+
+  it('rejects bad constants with a clear message', () => {
+    // input validation
+    expect(() => makeRotationCurve('reid-2014', { params: { a9: 1 } })).toThrow('a9');
+    expect(() => makeRotationCurve('flat', { R0Kpc: -1 })).toThrow('R0Kpc = -1');
+    expect(() => makeRotationCurve('table')).toThrow('two');
+    expect(() =>
+      makeRotationCurve('table', {
+        table: [
+          [4, 200],
+          [3, 210],
+        ],
+      }),
+    ).toThrow('row 2');
+    expect(() =>
+      makeRotationCurve('table', {
+        table: [
+          [4, 200],
+          [8, 500],
+        ],
+      }),
+    ).toThrow('Θ/R');
+  });
+
+  it('interpolates a table linearly and holds the end values', () => {
+    // documented table rule (linear interpolation, flat beyond the ends)
+    const c = makeRotationCurve('table', {
+      R0Kpc: 8,
+      table: [
+        [2, 200],
+        [8, 220],
+        [16, 240],
+      ],
+    });
+    expect(c.thetaKms(5)).toBeCloseTo(210, 12);
+    expect(c.thetaKms(12)).toBeCloseTo(230, 12);
+    expect(c.thetaKms(1)).toBe(200);
+    expect(c.thetaKms(30)).toBe(240);
+    expect(c.theta0Kms).toBe(220);
+    expect(
+      makeRotationCurve('table', {
+        R0Kpc: 8,
+        theta0Kms: 231,
+        table: [
+          [2, 200],
+          [8, 220],
+          [16, 240],
+        ],
+      }).thetaKms(16),
+    ).toBeCloseTo(252, 10);
+  });
+
+  it('lists every curve for forms', () => {
+    // presets mirror makeRotationCurve defaults
+    expect(ROTATION_CURVE_PRESETS.map((p) => p.name)).toEqual([
+      'flat',
+      'brand-blitz-1993',
+      'reid-2014',
+      'reid-2019',
+      'table',
+    ]);
+    for (const p of ROTATION_CURVE_PRESETS) {
+      expect(p.source.length).toBeGreaterThan(10);
+      if (p.name !== 'table') expect(p.theta0Kms).toBe(makeRotationCurve(p.name).theta0Kms);
+    }
+  });
+});

@@ -1,0 +1,10 @@
+/** The part of jstat (untyped on npm) that the statistics tests use as a reference. */
+declare module 'jstat' {
+  const jStat: {
+    normal: {
+      inv(p: number, mean: number, sd: number): number;
+      cdf(x: number, mean: number, sd: number): number;
+    };
+  };
+  export default jStat;
+}

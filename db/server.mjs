@@ -14,10 +14,14 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 /** Settings of one private server; `test` never touches the demo data of `dev`. */
 export function dbProfile(profile = 'dev') {
   const isTest = profile === 'test';
+  // LANEWISE_TEST_SLOT lets several test runs share a machine: own ports, own data.
+  const slot = isTest ? Number(process.env.LANEWISE_TEST_SLOT ?? 0) : 0;
   const port = Number(
-    isTest ? (process.env.LANEWISE_TEST_DB_PORT ?? 3317) : (process.env.LANEWISE_DB_PORT ?? 3307),
+    isTest
+      ? (process.env.LANEWISE_TEST_DB_PORT ?? 3317 + slot * 10)
+      : (process.env.LANEWISE_DB_PORT ?? 3307),
   );
-  const dir = path.join(root, '.data', isTest ? 'test' : 'dev');
+  const dir = path.join(root, '.data', isTest ? (slot ? `test-${slot}` : 'test') : 'dev');
   const database = isTest ? 'lanewise_test' : 'lanewise';
   const user = 'lanewise';
   const password = 'lanewise-local';

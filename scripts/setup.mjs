@@ -52,8 +52,9 @@ function localSecret(dir) {
 export function profileSettings(profile) {
   const isTest = profile === 'test';
   const db = dbProfile(profile);
-  const appPort = Number(isTest ? (process.env.LANEWISE_TEST_PORT ?? 3100) : (process.env.PORT ?? 3000));
-  const mailPort = Number(isTest ? (process.env.LANEWISE_TEST_MAIL_PORT ?? 2625) : (process.env.MAIL_CATCHER_PORT ?? 2525));
+  const slot = isTest ? Number(process.env.LANEWISE_TEST_SLOT ?? 0) : 0;
+  const appPort = Number(isTest ? (process.env.LANEWISE_TEST_PORT ?? 3100 + slot * 10) : (process.env.PORT ?? 3000));
+  const mailPort = Number(isTest ? (process.env.LANEWISE_TEST_MAIL_PORT ?? 2625 + slot * 10) : (process.env.MAIL_CATCHER_PORT ?? 2525));
   const url = `http://127.0.0.1:${appPort}`;
   const secrets = localSecret(db.dir);
   const env = {
@@ -66,7 +67,7 @@ export function profileSettings(profile) {
     MAIL_CATCHER_DIR: path.join(db.dir, 'mail'),
     LANEWISE_DATA_DIR: path.join(db.dir, 'files'),
     LANEWISE_MODE: process.env.LANEWISE_MODE ?? 'local',
-    NEXT_DIST_DIR: isTest ? '.next-test' : '.next',
+    NEXT_DIST_DIR: isTest ? (slot ? `.next-test-${slot}` : '.next-test') : '.next',
     NEXT_TELEMETRY_DISABLED: '1',
   };
   return { profile, db, appPort, mailPort, url, env };

@@ -67,6 +67,8 @@ export function profileSettings(profile) {
     MAIL_CATCHER_DIR: path.join(db.dir, 'mail'),
     LANEWISE_DATA_DIR: path.join(db.dir, 'files'),
     LANEWISE_MODE: process.env.LANEWISE_MODE ?? 'local',
+    // Tests check the 413 of the upload limit without sending half a gigabyte.
+    UPLOAD_LIMIT_MB: isTest ? '5' : (process.env.UPLOAD_LIMIT_MB ?? '512'),
     NEXT_DIST_DIR: isTest ? (slot ? `.next-test-${slot}` : '.next-test') : '.next',
     NEXT_TELEMETRY_DISABLED: '1',
   };

@@ -1,2 +1,2 @@
-// Job kinds register themselves here; the worker imports this once.
-export {};
+// Every job kind registers its handler on import; the worker imports this module once.
+import './ingest';

@@ -73,7 +73,10 @@ export async function runWorker(opts: { once?: boolean } = {}) {
     if (Date.now() - lastRecovery > 10_000) {
       lastRecovery = Date.now();
       const recovered = await recoverStaleJobs(STALE_SECONDS).catch(() => []);
-      for (const j of recovered) console.log(`[worker] recovered stale job ${j.id}`);
+      for (const r of recovered) {
+        console.log(`[worker] job ${r.job.id} of a stopped worker ${r.action}`);
+        if (r.action === 'failed') await jobHandler(r.job.kind)?.cleanup(r.job, r.reason).catch(() => undefined);
+      }
     }
     const worked = await runOne(workerId).catch((e) => {
       console.error('[worker] loop error:', e instanceof Error ? e.message : e);

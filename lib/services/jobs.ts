@@ -76,12 +76,18 @@ export async function recoverStaleJobs(staleSeconds: number, maxAttempts = 2) {
     .select({ id: jobs.id, attempts: jobs.attempts, kind: jobs.kind, payload: jobs.payload })
     .from(jobs)
     .where(and(eq(jobs.status, 'running'), lt(jobs.heartbeatAt, sql`NOW(3) - INTERVAL ${staleSeconds} SECOND`)));
+  const out: { job: Job; action: 'requeued' | 'failed'; reason: string }[] = [];
   for (const j of stale) {
+    const [job] = await db.select().from(jobs).where(eq(jobs.id, j.id));
+    if (!job) continue;
     if (j.attempts >= maxAttempts) {
-      await failJob(j.id, `The worker stopped during this job ${j.attempts} times; it was not retried again.`);
+      const reason = `The worker stopped during this job ${j.attempts} times; it was not retried again.`;
+      await failJob(j.id, reason);
+      out.push({ job, action: 'failed', reason });
     } else {
       await db.update(jobs).set({ status: 'queued', lockedBy: null, progress: 0 }).where(and(eq(jobs.id, j.id), eq(jobs.status, 'running')));
+      out.push({ job, action: 'requeued', reason: 'worker stopped' });
     }
   }
-  return stale;
+  return out;
 }

@@ -1,0 +1,16 @@
+import { requireProjectRole } from '@/lib/auth/access';
+import { json, route } from '@/lib/http/handler';
+import { createCatalog, listCatalogs } from '@/lib/services/catalogs';
+
+type P = { projectId: string };
+
+export const GET = route<P>(async (req, { projectId }) => {
+  await requireProjectRole(projectId, 'viewer', req);
+  return json({ catalogs: await listCatalogs(projectId) });
+});
+
+/** Multipart upload: file, name, kind, optional mapping (JSON) and policy → 202 with the queued catalog. */
+export const POST = route<P>(async (req, { projectId }) => {
+  const { user } = await requireProjectRole(projectId, 'editor', req, 'upload catalogs');
+  return json({ catalog: await createCatalog(req, projectId, user.id) }, 202);
+});

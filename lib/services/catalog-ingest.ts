@@ -1,0 +1,149 @@
+import fs from 'node:fs';
+import { Transform } from 'node:stream';
+import { eq, sql } from 'drizzle-orm';
+import { db, pool } from '@/db/client';
+import { catalogs } from '@/db/schema';
+import { IngestFileError } from '@/lib/ingest/errors';
+import type { Mapping } from '@/lib/ingest/mapping';
+import type { CanonicalColumns, Rejection } from '@/lib/ingest/canonical';
+import { makeBatchNormaliser } from '@/lib/ingest/normalise';
+import { openTable } from '@/lib/ingest/table';
+import { pointsPath } from './catalogs';
+
+const INSERT_ROWS = 2000;
+/** The parse report keeps this many rejected rows; the count covers them all. */
+const MAX_STORED_REJECTS = 100_000;
+
+const ROW_COLUMNS =
+  'catalog_id, `row`, line, name, l, b, v, radius_arcsec, pos_err_arcsec, v_err_kms, line_width_kms, dist_kpc, dist_err_kpc, original';
+
+const orNull = (x: number) => (Number.isFinite(x) ? x : null);
+
+async function insertRows(catalogId: string, c: CanonicalColumns) {
+  const conn = pool();
+  for (let start = 0; start < c.count; start += INSERT_ROWS) {
+    const end = Math.min(c.count, start + INSERT_ROWS);
+    const values: unknown[][] = new Array(end - start);
+    for (let i = start; i < end; i++) {
+      values[i - start] = [
+        catalogId,
+        c.row[i],
+        c.line[i],
+        c.name[i] ? c.name[i]!.slice(0, 128) : null,
+        c.lDeg[i],
+        c.bDeg[i],
+        orNull(c.vLsrKms[i]),
+        orNull(c.radiusArcsec[i]),
+        orNull(c.posErrArcsec[i]),
+        orNull(c.vErrKms[i]),
+        orNull(c.sigmaVKms[i]),
+        orNull(c.distKpc[i]),
+        orNull(c.distErrKpc[i]),
+        JSON.stringify(c.original[i]),
+      ];
+    }
+    await conn.query(`INSERT INTO catalog_rows (${ROW_COLUMNS}) VALUES ?`, [values]);
+  }
+}
+
+async function insertRejects(catalogId: string, rejected: Rejection[]) {
+  if (!rejected.length) return;
+  const values = rejected.map((r) => [catalogId, r.line, r.reason.slice(0, 500)]);
+  await pool().query('INSERT IGNORE INTO catalog_rejects (catalog_id, line, reason) VALUES ?', [values]);
+}
+
+/** Counts the bytes that pass, so progress can follow the file. */
+function byteCounter() {
+  const t = new Transform({
+    transform(chunk: Buffer, _enc, cb) {
+      t.bytes += chunk.length;
+      cb(null, chunk);
+    },
+  }) as Transform & { bytes: number };
+  t.bytes = 0;
+  return t;
+}
+
+/** Removes whatever an earlier, interrupted attempt stored for this catalog. */
+async function clearStoredRows(catalogId: string) {
+  await db.execute(sql`DELETE FROM catalog_rows WHERE catalog_id = ${catalogId}`);
+  await db.execute(sql`DELETE FROM catalog_rejects WHERE catalog_id = ${catalogId}`);
+}
+
+/**
+ * Reads, normalises, validates and stores one uploaded catalog. Rows go in batches while the
+ * catalog is `ingesting`, which no reader uses; the catalog turns `ready` last, in one
+ * statement, so a crash or failure never shows a partial catalog (see {@link failIngest}).
+ */
+export async function ingestCatalog(catalogId: string, progress: (fraction: number) => Promise<void>) {
+  const [c] = await db.select().from(catalogs).where(eq(catalogs.id, catalogId));
+  if (!c) throw new Error(`catalog ${catalogId} no longer exists`);
+  await db.update(catalogs).set({ status: 'ingesting', progress: 0, error: null }).where(eq(catalogs.id, catalogId));
+  await clearStoredRows(catalogId);
+
+  const size = fs.statSync(c.filePath).size || 1;
+  const counter = byteCounter();
+  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter));
+  const normalise = makeBatchNormaliser(table.header, c.mapping as Mapping);
+  const pointsTmp = `${pointsPath(catalogId)}.tmp`;
+  const points = fs.createWriteStream(pointsTmp);
+  let rowCount = 0;
+  let rejectedCount = 0;
+  let lastReport = 0;
+  try {
+    for await (const batch of table.batches) {
+      const { columns, rejected } = normalise(batch);
+      if (rejected.length && c.policy === 'reject-file') {
+        await insertRejects(catalogId, rejected.slice(0, 1000));
+        const first = rejected[0];
+        throw new IngestFileError(
+          'no-data-rows',
+          `The file was rejected as a whole (policy: reject the file on any bad row): line ${first.line}: ${first.reason}`,
+          { line: first.line },
+        );
+      }
+      if (rejectedCount < MAX_STORED_REJECTS) await insertRejects(catalogId, rejected.slice(0, MAX_STORED_REJECTS - rejectedCount));
+      rejectedCount += rejected.length;
+      await insertRows(catalogId, columns);
+      rowCount += columns.count;
+      const f32 = new Float32Array(columns.count * 3);
+      for (let i = 0; i < columns.count; i++) {
+        f32[3 * i] = columns.lDeg[i];
+        f32[3 * i + 1] = columns.bDeg[i];
+        f32[3 * i + 2] = columns.vLsrKms[i];
+      }
+      if (!points.write(Buffer.from(f32.buffer))) await new Promise<void>((r) => points.once('drain', () => r()));
+      const now = Date.now();
+      if (now - lastReport > 250) {
+        lastReport = now;
+        const fraction = Math.min(0.99, counter.bytes / size);
+        await db.update(catalogs).set({ progress: fraction }).where(eq(catalogs.id, catalogId));
+        await progress(fraction);
+      }
+    }
+    await new Promise<void>((resolve, reject) => points.end((err?: Error | null) => (err ? reject(err) : resolve())));
+    if (rowCount === 0) {
+      throw new IngestFileError('no-data-rows', `No row of the file passed validation (${rejectedCount} rejected); see the parse report.`);
+    }
+    fs.renameSync(pointsTmp, pointsPath(catalogId));
+    await db
+      .update(catalogs)
+      .set({ status: 'ready', progress: 1, rowCount, rejectedCount, readyAt: sql`NOW(3)` })
+      .where(eq(catalogs.id, catalogId));
+  } catch (e) {
+    points.destroy();
+    fs.rmSync(pointsTmp, { force: true });
+    throw e;
+  }
+}
+
+/** Marks a catalog failed with its reason and removes every stored row (the report stays). */
+export async function failIngest(catalogId: string, reason: string) {
+  await db.execute(sql`DELETE FROM catalog_rows WHERE catalog_id = ${catalogId}`);
+  await db
+    .update(catalogs)
+    .set({ status: 'failed', error: reason.slice(0, 2000), rowCount: 0 })
+    .where(eq(catalogs.id, catalogId));
+  fs.rmSync(`${pointsPath(catalogId)}.tmp`, { force: true });
+  fs.rmSync(pointsPath(catalogId), { force: true });
+}

@@ -1,0 +1,106 @@
+import fs from 'node:fs';
+import { sql, type SQL } from 'drizzle-orm';
+import { z } from 'zod';
+import { db, pool } from '@/db/client';
+import { HttpError } from '@/lib/http/errors';
+import { csvLine } from '@/lib/export/csv';
+import type { RowDataPacket } from 'mysql2';
+import { getCatalogDetail, pointsPath } from './catalogs';
+
+/** Canonical columns a table may sort on, each backed by an index on (catalog_id, column). */
+const SORTABLE = {
+  row: 'row',
+  name: 'name',
+  l: 'l',
+  b: 'b',
+  v: 'v',
+  radiusArcsec: 'radius_arcsec',
+  lineWidthKms: 'line_width_kms',
+  distKpc: 'dist_kpc',
+} as const;
+
+const num = z.coerce.number().finite().optional();
+
+export const rowsQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(500).default(50),
+  sort: z.enum(Object.keys(SORTABLE) as [keyof typeof SORTABLE]).default('row'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  q: z.string().trim().max(128).optional(),
+  lMin: num,
+  lMax: num,
+  bMin: num,
+  bMax: num,
+  vMin: num,
+  vMax: num,
+});
+
+export type RowsQuery = z.infer<typeof rowsQuerySchema>;
+
+async function assertReady(catalogId: string) {
+  const c = await getCatalogDetail(catalogId);
+  if (c.status !== 'ready') {
+    throw new HttpError(409, 'not_ready', `The catalog is ${c.status}; its rows are available once it is ready.`);
+  }
+  return c;
+}
+
+/** One page of canonical rows, sorted and filtered in SQL. */
+export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
+  await assertReady(catalogId);
+  const where: SQL[] = [sql`catalog_id = ${catalogId}`];
+  if (q.q) where.push(sql`name LIKE ${`%${q.q.replace(/[%_\\]/g, (m) => `\\${m}`)}%`}`);
+  if (q.lMin !== undefined) where.push(sql`l >= ${q.lMin}`);
+  if (q.lMax !== undefined) where.push(sql`l <= ${q.lMax}`);
+  if (q.bMin !== undefined) where.push(sql`b >= ${q.bMin}`);
+  if (q.bMax !== undefined) where.push(sql`b <= ${q.bMax}`);
+  if (q.vMin !== undefined) where.push(sql`v >= ${q.vMin}`);
+  if (q.vMax !== undefined) where.push(sql`v <= ${q.vMax}`);
+  const whereSql = sql.join(where, sql` AND `);
+  const column = sql.raw(`\`${SORTABLE[q.sort]}\``);
+  const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
+  const offset = (q.page - 1) * q.pageSize;
+  const [rows] = (await db.execute(sql`
+    SELECT \`row\`, line, name, l, b, v, radius_arcsec AS radiusArcsec, pos_err_arcsec AS posErrArcsec,
+           v_err_kms AS vErrKms, line_width_kms AS lineWidthKms, dist_kpc AS distKpc, dist_err_kpc AS distErrKpc
+    FROM catalog_rows WHERE ${whereSql}
+    ORDER BY ${column} ${dir}, \`row\` ${dir}
+    LIMIT ${q.pageSize} OFFSET ${offset}`)) as unknown as [Record<string, unknown>[]];
+  const [[count]] = (await db.execute(sql`SELECT COUNT(*) AS n FROM catalog_rows WHERE ${whereSql}`)) as unknown as [[{ n: number }]];
+  return { rows, total: Number(count.n), page: q.page, pageSize: q.pageSize };
+}
+
+/** The plot points file (Float32 l, b, v triples) of a ready catalog. */
+export async function catalogPoints(catalogId: string) {
+  const c = await assertReady(catalogId);
+  const file = pointsPath(catalogId);
+  if (!fs.existsSync(file)) throw new HttpError(404, 'not_found', 'The plot points of this catalog are missing; ingest it again.');
+  return { path: file, count: c.rowCount, bytes: fs.statSync(file).size };
+}
+
+const EXPORT_CHUNK = 5000;
+
+/**
+ * The normalised catalog as CSV lines, read in primary-key order a chunk at a time so memory
+ * stays flat; original columns follow the canonical ones, prefixed `orig_`.
+ */
+export async function* catalogCsv(catalogId: string): AsyncGenerator<string> {
+  const c = await assertReady(catalogId);
+  const original = (c.columns ?? []).map((n) => `orig_${n}`);
+  yield csvLine(['row', 'line', 'name', 'l_deg', 'b_deg', 'v_lsr_kms', 'radius_arcsec', 'pos_err_arcsec', 'v_err_kms', 'line_width_sigma_kms', 'dist_kpc', 'dist_err_kpc', ...original]);
+  let after = 0;
+  for (;;) {
+    const [rows] = await pool().query<RowDataPacket[]>(
+      'SELECT `row`, line, name, l, b, v, radius_arcsec, pos_err_arcsec, v_err_kms, line_width_kms, dist_kpc, dist_err_kpc, original FROM catalog_rows WHERE catalog_id = ? AND `row` > ? ORDER BY `row` LIMIT ?',
+      [catalogId, after, EXPORT_CHUNK],
+    );
+    if (!rows.length) return;
+    let out = '';
+    for (const r of rows) {
+      const orig = (typeof r.original === 'string' ? JSON.parse(r.original) : r.original) as string[];
+      out += csvLine([r.row, r.line, r.name, r.l, r.b, r.v, r.radius_arcsec, r.pos_err_arcsec, r.v_err_kms, r.line_width_kms, r.dist_kpc, r.dist_err_kpc, ...(orig ?? [])]);
+    }
+    yield out;
+    after = rows[rows.length - 1].row;
+  }
+}

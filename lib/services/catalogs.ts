@@ -1,0 +1,219 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import { db } from '@/db/client';
+import { TRACER_KINDS, catalogRejects, catalogs, jobs, users } from '@/db/schema';
+import { newId } from '@/lib/auth/secrets';
+import { conflict, HttpError, notFound } from '@/lib/http/errors';
+import { IngestFileError } from '@/lib/ingest/errors';
+import { mappingSchema, type Mapping } from '@/lib/ingest/mapping';
+import { makeBatchNormaliser } from '@/lib/ingest/normalise';
+import { previewFile } from '@/lib/ingest/preview';
+import { mappingFromSuggestion, suggestMapping } from '@/lib/ingest/suggest';
+import { receiveUpload, uploadDir } from './uploads';
+
+export const kindSchema = z.enum(TRACER_KINDS);
+export const policySchema = z.enum(['skip-bad-rows', 'reject-file']);
+
+const uploadFieldsSchema = z.object({
+  name: z.string().trim().min(1, 'Give the catalog a name.').max(200),
+  kind: kindSchema,
+  policy: policySchema.default('skip-bad-rows'),
+  mapping: z.string().optional(),
+});
+
+export type CatalogSummary = {
+  id: string;
+  projectId: string;
+  name: string;
+  kind: (typeof TRACER_KINDS)[number];
+  status: 'queued' | 'ingesting' | 'ready' | 'failed';
+  progress: number;
+  rowCount: number;
+  rejectedCount: number;
+  error: string | null;
+  fileName: string;
+  fileBytes: number;
+  format: string | null;
+  policy: 'skip-bad-rows' | 'reject-file';
+  createdAt: string;
+  readyAt: string | null;
+  createdBy: { id: string; name: string } | null;
+};
+
+/** A file-level problem of an upload as an HTTP answer saying what and where. */
+function fileError(e: IngestFileError): HttpError {
+  const status = e.code === 'ambiguous-position-columns' || e.code === 'no-position-columns' ? 422 : 400;
+  return new HttpError(status, e.code, e.message, e.details);
+}
+
+/** The mapping screen: format, delimiter, columns, first rows and the suggested mapping. */
+export async function previewUpload(req: Request) {
+  const dir = uploadDir(`preview-${newId()}`);
+  try {
+    const { file } = await receiveUpload(req, dir, 8 * 1024 * 1024);
+    if (!file) throw new HttpError(400, 'no_file', 'Attach the file as the multipart part "file".');
+    let buf = fs.readFileSync(file.path);
+    // The browser sends only the start of a big file: drop a line cut in half at the end.
+    const lastNewline = buf.lastIndexOf(0x0a);
+    if (lastNewline > 0 && lastNewline < buf.length - 1) buf = buf.subarray(0, lastNewline + 1);
+    const preview = await previewFile(buf, 20).catch((e) => {
+      throw e instanceof IngestFileError ? fileError(e) : e;
+    });
+    const suggestion = suggestMapping(
+      preview.header,
+      preview.rows.map((r) => r.values),
+    );
+    return {
+      preview: {
+        format: preview.format,
+        delimiter: preview.delimiter,
+        columns: preview.header.columns,
+        rows: preview.rows,
+      },
+      suggestion,
+    };
+  } finally {
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+/**
+ * Receives an upload, checks it as a whole (readable, has rows, position columns resolvable,
+ * mapping fits the columns), records the catalog and its ingest job, and returns at once.
+ * A file that fails these checks leaves nothing behind.
+ */
+export async function createCatalog(req: Request, projectId: string, userId: string): Promise<CatalogSummary> {
+  const id = newId();
+  const dir = uploadDir(id);
+  const { fields, file } = await receiveUpload(req, dir);
+  try {
+    if (!file) throw new HttpError(400, 'no_file', 'Attach the file as the multipart part "file".');
+    const input = uploadFieldsSchema.parse(fields);
+    let mapping: Mapping;
+    const preview = await previewFile(file.path, 50);
+    if (input.mapping) {
+      let parsed: unknown;
+      try {
+        parsed = JSON.parse(input.mapping);
+      } catch {
+        throw new HttpError(400, 'invalid_mapping', 'The mapping field is not valid JSON.');
+      }
+      mapping = mappingSchema.parse(parsed);
+    } else {
+      const suggestion = suggestMapping(preview.header, preview.rows.map((r) => r.values));
+      mapping = mappingFromSuggestion(suggestion, preview.header);
+    }
+    // Building the normaliser checks that every mapped column exists in the file.
+    makeBatchNormaliser(preview.header, mapping);
+    await db.transaction(async (tx) => {
+      const [job] = await tx.insert(jobs).values({ kind: 'ingest', projectId, payload: { catalogId: id }, createdBy: userId });
+      await tx.insert(catalogs).values({
+        id,
+        projectId,
+        name: input.name,
+        kind: input.kind,
+        policy: input.policy,
+        fileName: file.fileName,
+        filePath: file.path,
+        fileBytes: file.bytes,
+        format: preview.format,
+        mapping: mapping as Record<string, unknown>,
+        columns: preview.header.columns.map((c) => c.name),
+        jobId: Number(job.insertId),
+        createdBy: userId,
+      });
+    });
+    return getCatalog(id);
+  } catch (e) {
+    fs.rmSync(dir, { recursive: true, force: true });
+    if (e instanceof IngestFileError) throw fileError(e);
+    throw e;
+  }
+}
+
+const summaryColumns = {
+  c: catalogs,
+  creatorName: users.name,
+};
+
+function toSummary(r: { c: typeof catalogs.$inferSelect; creatorName: string | null }): CatalogSummary {
+  const c = r.c;
+  return {
+    id: c.id,
+    projectId: c.projectId,
+    name: c.name,
+    kind: c.kind,
+    status: c.status,
+    progress: c.progress,
+    rowCount: c.rowCount,
+    rejectedCount: c.rejectedCount,
+    error: c.error,
+    fileName: c.fileName,
+    fileBytes: c.fileBytes,
+    format: c.format,
+    policy: c.policy,
+    createdAt: c.createdAt.toISOString(),
+    readyAt: c.readyAt?.toISOString() ?? null,
+    createdBy: c.createdBy ? { id: c.createdBy, name: r.creatorName ?? '' } : null,
+  };
+}
+
+export async function listCatalogs(projectId: string): Promise<CatalogSummary[]> {
+  const rows = await db
+    .select(summaryColumns)
+    .from(catalogs)
+    .leftJoin(users, eq(users.id, catalogs.createdBy))
+    .where(eq(catalogs.projectId, projectId))
+    .orderBy(desc(catalogs.createdAt));
+  return rows.map(toSummary);
+}
+
+export async function getCatalog(id: string): Promise<CatalogSummary> {
+  const [r] = await db.select(summaryColumns).from(catalogs).leftJoin(users, eq(users.id, catalogs.createdBy)).where(eq(catalogs.id, id));
+  if (!r) throw notFound('Catalog');
+  return toSummary(r);
+}
+
+/** The project a catalog belongs to (for the access check), or 404. */
+export async function catalogProject(id: string): Promise<string> {
+  const [r] = await db.select({ projectId: catalogs.projectId }).from(catalogs).where(eq(catalogs.id, id));
+  if (!r) throw notFound('Catalog');
+  return r.projectId;
+}
+
+export async function getCatalogDetail(id: string) {
+  const summary = await getCatalog(id);
+  const [c] = await db.select({ mapping: catalogs.mapping, columns: catalogs.columns }).from(catalogs).where(eq(catalogs.id, id));
+  const rejected = await db
+    .select({ line: catalogRejects.line, reason: catalogRejects.reason })
+    .from(catalogRejects)
+    .where(eq(catalogRejects.catalogId, id))
+    .orderBy(asc(catalogRejects.line))
+    .limit(1000);
+  return { ...summary, mapping: c?.mapping ?? null, columns: c?.columns ?? [], rejected };
+}
+
+export async function deleteCatalog(id: string): Promise<void> {
+  const c = await getCatalog(id);
+  if (c.status === 'ingesting' || c.status === 'queued') {
+    throw conflict('This catalog is still being ingested; wait until it is ready or failed.');
+  }
+  await db.transaction(async (tx) => {
+    await tx.execute(sql`DELETE FROM catalog_rows WHERE catalog_id = ${id}`);
+    await tx.delete(catalogs).where(eq(catalogs.id, id));
+  });
+  fs.rmSync(uploadDir(id), { recursive: true, force: true });
+  fs.rmSync(pointsPath(id), { force: true });
+}
+
+/** Where the plot points of a ready catalog are kept (Float32 l, b, v triples). */
+export function pointsPath(id: string) {
+  return path.join(/* turbopackIgnore: true */ uploadDir(id), 'points.f32');
+}
+
+export async function readyCatalogIds(projectId: string): Promise<string[]> {
+  const rows = await db.select({ id: catalogs.id }).from(catalogs).where(and(eq(catalogs.projectId, projectId), eq(catalogs.status, 'ready')));
+  return rows.map((r) => r.id);
+}

@@ -199,33 +199,4 @@ export const catalogRejects = mysqlTable(
   (t) => [primaryKey({ columns: [t.catalogId, t.line] })],
 );
 
-/** Canonical columns of every source: l, b in degrees, v in km/s (LSR, radio convention). */
-export const catalogRows = mysqlTable(
-  'catalog_rows',
-  {
-    catalogId: id('catalog_id').notNull(),
-    row: int('row').notNull(),
-    line: int('line').notNull(),
-    name: varchar('name', { length: 128 }),
-    l: double('l').notNull(),
-    b: double('b').notNull(),
-    v: double('v'),
-    radiusArcsec: double('radius_arcsec'),
-    posErrArcsec: double('pos_err_arcsec'),
-    vErrKms: double('v_err_kms'),
-    lineWidthKms: double('line_width_kms'),
-    distKpc: double('dist_kpc'),
-    distErrKpc: double('dist_err_kpc'),
-    original: json('original').$type<string[]>(),
-  },
-  (t) => [
-    primaryKey({ columns: [t.catalogId, t.row] }),
-    index('rows_l').on(t.catalogId, t.l),
-    index('rows_b').on(t.catalogId, t.b),
-    index('rows_v').on(t.catalogId, t.v),
-    index('rows_name').on(t.catalogId, t.name),
-    index('rows_radius').on(t.catalogId, t.radiusArcsec),
-    index('rows_line_width').on(t.catalogId, t.lineWidthKms),
-    index('rows_dist').on(t.catalogId, t.distKpc),
-  ],
-);
+// Rows of each catalog live in a table per catalog, created by lib/services/catalog-tables.ts.

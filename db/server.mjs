@@ -134,7 +134,7 @@ export async function startDb(profile = 'dev') {
       '--innodb-log-file-size=256M',
       '--innodb-flush-log-at-trx-commit=2',
       '--max-allowed-packet=256M',
-      '--local-infile=0',
+      '--local-infile=1',
     ];
     if (process.getuid?.() === 0) args.unshift('--user=root');
     // --no-defaults must come first: the system's my.cnf would point at its own instance.

@@ -1,5 +1,5 @@
 import fs from 'node:fs';
-import { Transform } from 'node:stream';
+import { Readable, Transform } from 'node:stream';
 import { eq, sql } from 'drizzle-orm';
 import { db, pool } from '@/db/client';
 import { catalogs } from '@/db/schema';
@@ -9,41 +9,48 @@ import type { CanonicalColumns, Rejection } from '@/lib/ingest/canonical';
 import { makeBatchNormaliser } from '@/lib/ingest/normalise';
 import { openTable } from '@/lib/ingest/table';
 import { pointsPath } from './catalogs';
+import { createLoadTable, dropRowsTables, finaliseLoadTable, ROW_COLUMNS, rowsTableName } from './catalog-tables';
 
-const INSERT_ROWS = 2000;
 /** The parse report keeps this many rejected rows; the count covers them all. */
 const MAX_STORED_REJECTS = 100_000;
 
-const ROW_COLUMNS =
-  'catalog_id, `row`, line, name, l, b, v, radius_arcsec, pos_err_arcsec, v_err_kms, line_width_kms, dist_kpc, dist_err_kpc, original';
 
-const orNull = (x: number) => (Number.isFinite(x) ? x : null);
+/** A TSV cell for LOAD DATA: `\N` is NULL; backslash, tab and newline are escaped. */
+function tsvCell(v: string | number | null): string {
+  if (v === null) return '\\N';
+  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N';
+  return v.replace(/[\\\t\n\r]/g, (m) => (m === '\\' ? '\\\\' : m === '\t' ? '\\t' : m === '\n' ? '\\n' : '\\r'));
+}
 
+/**
+ * Stores a batch of rows with LOAD DATA LOCAL INFILE fed from memory: several times faster
+ * than multi-row INSERT statements for millions of rows.
+ */
 async function insertRows(catalogId: string, c: CanonicalColumns) {
-  const conn = pool();
-  for (let start = 0; start < c.count; start += INSERT_ROWS) {
-    const end = Math.min(c.count, start + INSERT_ROWS);
-    const values: unknown[][] = new Array(end - start);
-    for (let i = start; i < end; i++) {
-      values[i - start] = [
-        catalogId,
-        c.row[i],
-        c.line[i],
-        c.name[i] ? c.name[i]!.slice(0, 128) : null,
-        c.lDeg[i],
-        c.bDeg[i],
-        orNull(c.vLsrKms[i]),
-        orNull(c.radiusArcsec[i]),
-        orNull(c.posErrArcsec[i]),
-        orNull(c.vErrKms[i]),
-        orNull(c.sigmaVKms[i]),
-        orNull(c.distKpc[i]),
-        orNull(c.distErrKpc[i]),
-        JSON.stringify(c.original[i]),
-      ];
-    }
-    await conn.query(`INSERT INTO catalog_rows (${ROW_COLUMNS}) VALUES ?`, [values]);
+  if (!c.count) return;
+  const parts: string[] = new Array(c.count);
+  for (let i = 0; i < c.count; i++) {
+    parts[i] = [
+      c.row[i],
+      c.line[i],
+      tsvCell(c.name[i] ? c.name[i]!.slice(0, 128) : null),
+      c.lDeg[i],
+      c.bDeg[i],
+      tsvCell(c.vLsrKms[i]),
+      tsvCell(c.radiusArcsec[i]),
+      tsvCell(c.posErrArcsec[i]),
+      tsvCell(c.vErrKms[i]),
+      tsvCell(c.sigmaVKms[i]),
+      tsvCell(c.distKpc[i]),
+      tsvCell(c.distErrKpc[i]),
+      tsvCell(JSON.stringify(c.original[i])),
+    ].join('\t');
   }
+  const body = parts.join('\n') + '\n';
+  await pool().query({
+    sql: `LOAD DATA LOCAL INFILE 'rows.tsv' INTO TABLE ${rowsTableName(catalogId, true)} CHARACTER SET utf8mb4 (${ROW_COLUMNS})`,
+    infileStreamFactory: () => Readable.from([Buffer.from(body)]),
+  });
 }
 
 async function insertRejects(catalogId: string, rejected: Rejection[]) {
@@ -66,13 +73,13 @@ function byteCounter() {
 
 /** Removes whatever an earlier, interrupted attempt stored for this catalog. */
 async function clearStoredRows(catalogId: string) {
-  await db.execute(sql`DELETE FROM catalog_rows WHERE catalog_id = ${catalogId}`);
+  await dropRowsTables(catalogId);
   await db.execute(sql`DELETE FROM catalog_rejects WHERE catalog_id = ${catalogId}`);
 }
 
 /**
- * Reads, normalises, validates and stores one uploaded catalog. Rows go in batches while the
- * catalog is `ingesting`, which no reader uses; the catalog turns `ready` last, in one
+ * Reads, normalises, validates and stores one uploaded catalog. Rows go in batches into a load
+ * table that no reader uses (see catalog-tables.ts); the catalog turns `ready` last, in one
  * statement, so a crash or failure never shows a partial catalog (see {@link failIngest}).
  */
 export async function ingestCatalog(catalogId: string, progress: (fraction: number) => Promise<void>) {
@@ -80,16 +87,19 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
   if (!c) throw new Error(`catalog ${catalogId} no longer exists`);
   await db.update(catalogs).set({ status: 'ingesting', progress: 0, error: null }).where(eq(catalogs.id, catalogId));
   await clearStoredRows(catalogId);
+  await createLoadTable(catalogId);
 
   const size = fs.statSync(c.filePath).size || 1;
   const counter = byteCounter();
-  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter));
+  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter), { batchSize: 20_000 });
   const normalise = makeBatchNormaliser(table.header, c.mapping as Mapping);
   const pointsTmp = `${pointsPath(catalogId)}.tmp`;
   const points = fs.createWriteStream(pointsTmp);
   let rowCount = 0;
   let rejectedCount = 0;
   let lastReport = 0;
+  // The database stores batch k while JavaScript parses batch k + 1: both cores stay busy.
+  let storing: Promise<void> = Promise.resolve();
   try {
     for await (const batch of table.batches) {
       const { columns, rejected } = normalise(batch);
@@ -104,7 +114,8 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
       }
       if (rejectedCount < MAX_STORED_REJECTS) await insertRejects(catalogId, rejected.slice(0, MAX_STORED_REJECTS - rejectedCount));
       rejectedCount += rejected.length;
-      await insertRows(catalogId, columns);
+      await storing;
+      storing = insertRows(catalogId, columns);
       rowCount += columns.count;
       const f32 = new Float32Array(columns.count * 3);
       for (let i = 0; i < columns.count; i++) {
@@ -121,16 +132,20 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
         await progress(fraction);
       }
     }
+    await storing;
     await new Promise<void>((resolve, reject) => points.end((err?: Error | null) => (err ? reject(err) : resolve())));
     if (rowCount === 0) {
       throw new IngestFileError('no-data-rows', `No row of the file passed validation (${rejectedCount} rejected); see the parse report.`);
     }
+    await progress(0.99);
+    await finaliseLoadTable(catalogId);
     fs.renameSync(pointsTmp, pointsPath(catalogId));
     await db
       .update(catalogs)
       .set({ status: 'ready', progress: 1, rowCount, rejectedCount, readyAt: sql`NOW(3)` })
       .where(eq(catalogs.id, catalogId));
   } catch (e) {
+    await storing.catch(() => undefined);
     points.destroy();
     fs.rmSync(pointsTmp, { force: true });
     throw e;
@@ -139,7 +154,7 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
 
 /** Marks a catalog failed with its reason and removes every stored row (the report stays). */
 export async function failIngest(catalogId: string, reason: string) {
-  await db.execute(sql`DELETE FROM catalog_rows WHERE catalog_id = ${catalogId}`);
+  await dropRowsTables(catalogId);
   await db
     .update(catalogs)
     .set({ status: 'failed', error: reason.slice(0, 2000), rowCount: 0 })

@@ -6,6 +6,7 @@ import { HttpError } from '@/lib/http/errors';
 import { csvLine } from '@/lib/export/csv';
 import type { RowDataPacket } from 'mysql2';
 import { getCatalogDetail, pointsPath } from './catalogs';
+import { rowsTable, rowsTableName } from './catalog-tables';
 
 /** Canonical columns a table may sort on, each backed by an index on (catalog_id, column). */
 const SORTABLE = {
@@ -46,9 +47,15 @@ async function assertReady(catalogId: string) {
 }
 
 /** One page of canonical rows, sorted and filtered in SQL. */
+async function countRows(table: SQL, whereSql: SQL) {
+  const [[count]] = (await db.execute(sql`SELECT COUNT(*) AS n FROM ${table} WHERE ${whereSql}`)) as unknown as [[{ n: number }]];
+  return Number(count.n);
+}
+
 export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
-  await assertReady(catalogId);
-  const where: SQL[] = [sql`catalog_id = ${catalogId}`];
+  const c = await assertReady(catalogId);
+  const where: SQL[] = [sql`1 = 1`];
+  const table = rowsTable(catalogId);
   if (q.q) where.push(sql`name LIKE ${`%${q.q.replace(/[%_\\]/g, (m) => `\\${m}`)}%`}`);
   if (q.lMin !== undefined) where.push(sql`l >= ${q.lMin}`);
   if (q.lMax !== undefined) where.push(sql`l <= ${q.lMax}`);
@@ -63,11 +70,12 @@ export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
   const [rows] = (await db.execute(sql`
     SELECT \`row\`, line, name, l, b, v, radius_arcsec AS radiusArcsec, pos_err_arcsec AS posErrArcsec,
            v_err_kms AS vErrKms, line_width_kms AS lineWidthKms, dist_kpc AS distKpc, dist_err_kpc AS distErrKpc
-    FROM catalog_rows WHERE ${whereSql}
+    FROM ${table} WHERE ${whereSql}
     ORDER BY ${column} ${dir}, \`row\` ${dir}
     LIMIT ${q.pageSize} OFFSET ${offset}`)) as unknown as [Record<string, unknown>[]];
-  const [[count]] = (await db.execute(sql`SELECT COUNT(*) AS n FROM catalog_rows WHERE ${whereSql}`)) as unknown as [[{ n: number }]];
-  return { rows, total: Number(count.n), page: q.page, pageSize: q.pageSize };
+  // Unfiltered, the total is the catalog's row count; counting a million rows per page is waste.
+  const total = where.length === 1 ? c.rowCount : await countRows(table, whereSql);
+  return { rows, total, page: q.page, pageSize: q.pageSize };
 }
 
 /** The plot points file (Float32 l, b, v triples) of a ready catalog. */
@@ -91,8 +99,8 @@ export async function* catalogCsv(catalogId: string): AsyncGenerator<string> {
   let after = 0;
   for (;;) {
     const [rows] = await pool().query<RowDataPacket[]>(
-      'SELECT `row`, line, name, l, b, v, radius_arcsec, pos_err_arcsec, v_err_kms, line_width_kms, dist_kpc, dist_err_kpc, original FROM catalog_rows WHERE catalog_id = ? AND `row` > ? ORDER BY `row` LIMIT ?',
-      [catalogId, after, EXPORT_CHUNK],
+      `SELECT \`row\`, line, name, l, b, v, radius_arcsec, pos_err_arcsec, v_err_kms, line_width_kms, dist_kpc, dist_err_kpc, original FROM \`${rowsTableName(catalogId)}\` WHERE \`row\` > ? ORDER BY \`row\` LIMIT ?`,
+      [after, EXPORT_CHUNK],
     );
     if (!rows.length) return;
     let out = '';

@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '@/db/client';
 import { TRACER_KINDS, catalogRejects, catalogs, jobs, users } from '@/db/schema';
@@ -11,6 +11,7 @@ import { mappingSchema, type Mapping } from '@/lib/ingest/mapping';
 import { makeBatchNormaliser } from '@/lib/ingest/normalise';
 import { previewFile } from '@/lib/ingest/preview';
 import { mappingFromSuggestion, suggestMapping } from '@/lib/ingest/suggest';
+import { dropRowsTables } from './catalog-tables';
 import { receiveUpload, uploadDir } from './uploads';
 
 export const kindSchema = z.enum(TRACER_KINDS);
@@ -200,10 +201,8 @@ export async function deleteCatalog(id: string): Promise<void> {
   if (c.status === 'ingesting' || c.status === 'queued') {
     throw conflict('This catalog is still being ingested; wait until it is ready or failed.');
   }
-  await db.transaction(async (tx) => {
-    await tx.execute(sql`DELETE FROM catalog_rows WHERE catalog_id = ${id}`);
-    await tx.delete(catalogs).where(eq(catalogs.id, id));
-  });
+  await db.delete(catalogs).where(eq(catalogs.id, id));
+  await dropRowsTables(id);
   fs.rmSync(uploadDir(id), { recursive: true, force: true });
   fs.rmSync(pointsPath(id), { force: true });
 }

@@ -1,0 +1,321 @@
+/**
+ * The calculators: coordinate conversion (J2000 / ICRS ↔ Galactic) and kinematic distances for
+ * lists of positions, shared by `POST /api/tools/*` and the calculators page. Request checking
+ * lives here so that every caller gets the same limits and the same messages, each naming the
+ * offending entry by its index. This module touches no database, so the page may also use its
+ * curve builder and its paste reader in the browser.
+ */
+import { z } from 'zod';
+import {
+  CoordinateParseError,
+  equatorialToGalacticBulk,
+  galacticToEquatorialBulk,
+  parseDecDeg,
+  parseRaDeg,
+} from '@/lib/astro/coordinates';
+import {
+  flagsFromBits,
+  kinematicDistancesBulk,
+  type KinematicFlag,
+} from '@/lib/astro/kinematic-distance';
+import {
+  makeRotationCurve,
+  ROTATION_CURVE_PRESETS,
+  type RotationCurve,
+} from '@/lib/astro/rotation-curves';
+import { HttpError } from '@/lib/http/errors';
+
+/** Most points (or sources) one calculator request may carry; more is a 413. */
+export const MAX_TOOL_POINTS = 100_000;
+
+/** Frames a position list can be given in. */
+export const COORDINATE_FRAMES = ['equatorial', 'galactic'] as const;
+export type CoordinateFrame = (typeof COORDINATE_FRAMES)[number];
+
+/** Rotation curves the kinematic-distance calculator offers (the named published models). */
+export const TOOL_CURVES = ['flat', 'brand-blitz-1993', 'reid-2014', 'reid-2019'] as const;
+export type ToolCurveName = (typeof TOOL_CURVES)[number];
+
+/** Presets of {@link TOOL_CURVES} (label, source, default R0 and Θ(R0)) for forms. */
+export const TOOL_CURVE_PRESETS = ROTATION_CURVE_PRESETS.filter((p) =>
+  (TOOL_CURVES as readonly string[]).includes(p.name),
+).map((p) => ({
+  name: p.name as ToolCurveName,
+  label: p.label,
+  source: p.source,
+  R0Kpc: p.R0Kpc,
+  theta0Kms: p.theta0Kms as number,
+}));
+export type ToolCurvePreset = (typeof TOOL_CURVE_PRESETS)[number];
+
+/** One plain sentence per kinematic-distance flag, for tables and tooltips. */
+export const KINEMATIC_FLAG_TEXT: Readonly<Record<KinematicFlag, string>> = Object.freeze({
+  'beyond-terminal':
+    'The velocity exceeds the terminal velocity of this sight line; the source is placed at the tangent point.',
+  'near-tangent':
+    'The velocity lies within 7 km/s of the terminal velocity (typical streaming), so near and far cannot be told apart.',
+  'unreliable-longitude':
+    'Within 10° of l = 0° or 180°: the velocity hardly changes with distance here and non-circular motions dominate.',
+  'outer-galaxy':
+    'Outside the solar circle (R > R0): there is a single root, given as the far distance.',
+  'no-solution':
+    'No point on this sight line has this velocity under circular rotation (a forbidden velocity, or a direction where velocity does not depend on distance).',
+});
+
+/** A 400 that names the offending entry, e.g. `points[17]: latitude 95 is outside −90…90°`. */
+function entryError(list: string, index: number, reason: string): HttpError {
+  const path = `${list}[${index}]`;
+  return new HttpError(
+    400,
+    `invalid_${list === 'points' ? 'point' : 'source'}`,
+    `${path}: ${reason}`,
+    [{ path, index, message: reason }],
+  );
+}
+
+function tooMany(list: string, n: number): HttpError {
+  return new HttpError(
+    413,
+    'too_many_points',
+    `${n} ${list} in one request; the limit is ${MAX_TOOL_POINTS}. Split the list into several requests.`,
+    { count: n, limit: MAX_TOOL_POINTS },
+  );
+}
+
+function shown(value: unknown): string {
+  return typeof value === 'string' ? JSON.stringify(value) : String(value);
+}
+
+/** Body of `POST /api/tools/convert`: the envelope; each point is checked by {@link convertPoints}. */
+export const convertRequestSchema = z.object({
+  from: z.enum(COORDINATE_FRAMES),
+  points: z.array(z.unknown()),
+});
+export type ConvertRequest = z.infer<typeof convertRequestSchema>;
+
+function readNumber(value: unknown, what: string): number {
+  const n = typeof value === 'string' && value.trim() !== '' ? Number(value) : value;
+  if (typeof n !== 'number' || !Number.isFinite(n)) {
+    throw new RangeError(`${what} ${shown(value)} is not a finite number`);
+  }
+  return n;
+}
+
+function readEquatorial(point: unknown[]): [number, number] {
+  const [ra, dec] = point;
+  if (typeof ra === 'number' && !(ra >= 0 && ra < 360)) {
+    throw new RangeError(`right ascension ${ra} is outside 0…360°`);
+  }
+  if (typeof dec === 'number' && !(dec >= -90 && dec <= 90)) {
+    throw new RangeError(`declination ${dec} is outside −90…90°`);
+  }
+  if (typeof ra !== 'number' && typeof ra !== 'string') {
+    throw new RangeError(`right ascension ${shown(ra)} is neither a number nor text`);
+  }
+  if (typeof dec !== 'number' && typeof dec !== 'string') {
+    throw new RangeError(`declination ${shown(dec)} is neither a number nor text`);
+  }
+  return [parseRaDeg(ra), parseDecDeg(dec)];
+}
+
+function readGalactic(point: unknown[]): [number, number] {
+  const l = readNumber(point[0], 'longitude l');
+  const b = readNumber(point[1], 'latitude b');
+  if (l < -360 || l > 360) throw new RangeError(`longitude l ${l} is outside −360…360°`);
+  if (b < -90 || b > 90) throw new RangeError(`latitude b ${b} is outside −90…90°`);
+  return [l, b];
+}
+
+/**
+ * Converts a checked request: equatorial (J2000 / ICRS RA, Dec in degrees, or RA/Dec text such
+ * as `18:03:40.2` / `-24 22 43` read by parseRaDeg/parseDecDeg) to Galactic (l in [0, 360), b),
+ * or Galactic (l, b in degrees, numbers or decimal text) to equatorial (RA in [0, 360), Dec).
+ * Throws a 413 beyond {@link MAX_TOOL_POINTS} and a 400 naming the first bad point's index.
+ */
+export function convertPoints(input: ConvertRequest): { points: Array<[number, number]> } {
+  const n = input.points.length;
+  if (n > MAX_TOOL_POINTS) throw tooMany('points', n);
+  const lon = new Float64Array(n);
+  const lat = new Float64Array(n);
+  const read = input.from === 'equatorial' ? readEquatorial : readGalactic;
+  for (let i = 0; i < n; i++) {
+    const p = input.points[i];
+    if (!Array.isArray(p) || p.length !== 2) {
+      throw entryError(
+        'points',
+        i,
+        `expected a [longitude, latitude] pair, got ${JSON.stringify(p)}`,
+      );
+    }
+    try {
+      [lon[i], lat[i]] = read(p);
+    } catch (e) {
+      if (e instanceof RangeError || e instanceof CoordinateParseError) {
+        throw entryError('points', i, e.message);
+      }
+      throw e;
+    }
+  }
+  let outLon: Float64Array;
+  let outLat: Float64Array;
+  if (input.from === 'equatorial') {
+    ({ lDeg: outLon, bDeg: outLat } = equatorialToGalacticBulk(lon, lat));
+  } else {
+    ({ raDeg: outLon, decDeg: outLat } = galacticToEquatorialBulk(lon, lat));
+  }
+  const points = new Array<[number, number]>(n);
+  for (let i = 0; i < n; i++) points[i] = [outLon[i], outLat[i]];
+  return { points };
+}
+
+/** Body of `POST /api/tools/kinematic-distance`: the envelope; each source is checked by {@link kinematicDistances}. */
+export const kinematicDistanceRequestSchema = z.object({
+  curve: z.enum(TOOL_CURVES),
+  R0: z.number().positive().max(100).optional(),
+  theta0: z.number().positive().max(1000).optional(),
+  sources: z.array(z.unknown()),
+});
+export type KinematicDistanceRequest = z.infer<typeof kinematicDistanceRequestSchema>;
+
+/**
+ * The rotation curve of a calculator request. `R0Kpc` (kpc) replaces the model's Sun–centre
+ * distance; `theta0Kms` (km/s) is always the circular speed at the Sun, Θ(R0), for every model
+ * (for Brand & Blitz 1993 the formula's own Θ0 is rescaled so that Θ(R0) = Θ0 (a1 + a3) equals
+ * it), so that the preset value shown in a form reproduces the published curve. Throws a 400 for
+ * constants the model rejects.
+ */
+export function toolCurve(name: ToolCurveName, R0Kpc?: number, theta0Kms?: number): RotationCurve {
+  try {
+    const base = makeRotationCurve(name, { R0Kpc });
+    if (theta0Kms === undefined) return base;
+    const own = name === 'flat' || name === 'brand-blitz-1993';
+    return makeRotationCurve(name, {
+      R0Kpc,
+      theta0Kms: own ? base.params.theta0Kms * (theta0Kms / base.theta0Kms) : theta0Kms,
+    });
+  } catch (e) {
+    if (e instanceof RangeError) throw new HttpError(400, 'invalid_curve', e.message);
+    throw e;
+  }
+}
+
+/** One kinematic-distance result as the API returns it: kpc, null where a root does not exist. */
+export type KinematicDistanceRow = {
+  R: number | null;
+  near: number | null;
+  far: number | null;
+  tangent: number | null;
+  flags: KinematicFlag[];
+};
+
+/** The curve actually used, echoed with the results: R0 (kpc) and Θ(R0) (km/s). */
+export type ToolCurveUsed = {
+  name: ToolCurveName;
+  label: string;
+  source: string;
+  R0: number;
+  theta0: number;
+};
+
+function readSource(s: unknown): [number, number, number] {
+  if (typeof s !== 'object' || s === null || Array.isArray(s)) {
+    throw new RangeError(`expected an object { l, b, v }, got ${JSON.stringify(s)}`);
+  }
+  const { l, b, v } = s as Record<string, unknown>;
+  for (const [key, value] of [
+    ['l', l],
+    ['b', b],
+    ['v', v],
+  ] as const) {
+    if (typeof value !== 'number' || !Number.isFinite(value)) {
+      throw new RangeError(
+        `${key} ${value === undefined ? 'is missing' : `${shown(value)} is not a finite number`}`,
+      );
+    }
+  }
+  const [ln, bn, vn] = [l, b, v] as [number, number, number];
+  if (ln < -360 || ln > 360) throw new RangeError(`longitude l ${ln} is outside −360…360°`);
+  if (bn < -90 || bn > 90) throw new RangeError(`latitude b ${bn} is outside −90…90°`);
+  return [ln, bn, vn];
+}
+
+const nullable = (x: number): number | null => (Number.isNaN(x) ? null : x);
+
+/**
+ * Kinematic distances (SCIENCE.md §4) of a checked request: sources at Galactic l, b (deg) with
+ * v_LSR (km/s), on the chosen curve with optional R0 (kpc) and Θ(R0) (km/s). Results follow the
+ * rules of `kinematicDistancesBulk` (line-of-sight kpc; an outer-Galaxy root is `far`). Throws a
+ * 413 beyond {@link MAX_TOOL_POINTS} sources and a 400 naming the first bad source's index.
+ */
+export function kinematicDistances(input: KinematicDistanceRequest): {
+  curve: ToolCurveUsed;
+  results: KinematicDistanceRow[];
+} {
+  const n = input.sources.length;
+  if (n > MAX_TOOL_POINTS) throw tooMany('sources', n);
+  const lDeg = new Float64Array(n);
+  const bDeg = new Float64Array(n);
+  const vKms = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    try {
+      [lDeg[i], bDeg[i], vKms[i]] = readSource(input.sources[i]);
+    } catch (e) {
+      if (e instanceof RangeError) throw entryError('sources', i, e.message);
+      throw e;
+    }
+  }
+  const curve = toolCurve(input.curve, input.R0, input.theta0);
+  const out = kinematicDistancesBulk(lDeg, bDeg, vKms, curve);
+  const results = new Array<KinematicDistanceRow>(n);
+  for (let i = 0; i < n; i++) {
+    results[i] = {
+      R: nullable(out.RKpc[i]),
+      near: nullable(out.nearKpc[i]),
+      far: nullable(out.farKpc[i]),
+      tangent: nullable(out.tangentKpc[i]),
+      flags: flagsFromBits(out.flags[i]),
+    };
+  }
+  return {
+    curve: {
+      name: input.curve,
+      label: curve.label,
+      source: curve.source,
+      R0: curve.R0Kpc,
+      theta0: curve.theta0Kms,
+    },
+    results,
+  };
+}
+
+/** A pasted line split into its values, with its 1-based line number. */
+export type PastedRow = { line: number; values: string[] };
+
+/**
+ * Reads pasted text into rows of `width` values (2 for positions, 3 for l, b, v), one row per
+ * line. Blank lines and lines starting with `#` are skipped. Values are separated by commas,
+ * semicolons or tabs, or else by spaces; with spaces, a position line of six values is read as
+ * two sexagesimal triples (`18 03 40.2 -24 22 43`). Throws a RangeError naming the line when a
+ * line has the wrong number of values.
+ */
+export function readPastedRows(text: string, width: 2 | 3): PastedRow[] {
+  const rows: PastedRow[] = [];
+  text.split(/\r\n|\r|\n/).forEach((raw, i) => {
+    const line = raw.trim();
+    if (line === '' || line.startsWith('#')) return;
+    let values = /[,;\t]/.test(line)
+      ? line.split(/\s*[,;\t]\s*/).filter((v) => v !== '')
+      : line.split(/\s+/);
+    if (width === 2 && values.length === 6) {
+      values = [values.slice(0, 3).join(' '), values.slice(3).join(' ')];
+    }
+    if (values.length !== width) {
+      const wanted = width === 2 ? 'two values (longitude and latitude)' : 'three values (l, b, v)';
+      throw new RangeError(
+        `line ${i + 1}: expected ${wanted}, found ${values.length} in "${line}"`,
+      );
+    }
+    rows.push({ line: i + 1, values });
+  });
+  return rows;
+}

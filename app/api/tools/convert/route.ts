@@ -1,0 +1,10 @@
+import { requireUser } from '@/lib/auth/access';
+import { json, jsonBody, route } from '@/lib/http/handler';
+import { convertPoints, convertRequestSchema } from '@/lib/services/tools';
+
+/** J2000 / ICRS ↔ Galactic for up to 100 000 points (API.md, `POST /api/tools/convert`). */
+export const POST = route(async (req) => {
+  await requireUser(req);
+  const input = convertRequestSchema.parse(await jsonBody(req));
+  return json(convertPoints(input));
+});

@@ -1,0 +1,19 @@
+import { pageProjectRole } from '@/lib/auth/page-user';
+import { roleAtLeast } from '@/lib/auth/roles';
+import { CatalogDetail } from './catalog-detail';
+
+export default async function CatalogPage({
+  params,
+}: {
+  params: Promise<{ projectId: string; catalogId: string }>;
+}) {
+  const { projectId, catalogId } = await params;
+  const { role } = await pageProjectRole(projectId);
+  return (
+    <CatalogDetail
+      projectId={projectId}
+      catalogId={catalogId}
+      canEdit={roleAtLeast(role, 'editor')}
+    />
+  );
+}

@@ -1,0 +1,38 @@
+import type { Mapping } from '@/lib/ingest/mapping';
+
+/** One column of the previewed file, with the unit and UCD a VOTable gives. */
+export interface PreviewColumn {
+  name: string;
+  unit?: string;
+  ucd?: string;
+}
+
+/** A reading of the position from two columns that the server found, with its evidence. */
+export interface PositionCandidateJson {
+  system: 'galactic' | 'equatorial';
+  lon: { column: string; unit: string };
+  lat: { column: string; unit: string };
+  evidence: 'ucd' | 'name' | 'values';
+}
+
+/** `POST /api/projects/{id}/catalogs/preview` → 200. */
+export interface PreviewResponse {
+  preview: {
+    format: 'delimited' | 'votable';
+    delimiter: ',' | '\t' | ';' | 'whitespace' | null;
+    columns: PreviewColumn[];
+    rows: { row: number; line: number; values: string[] }[];
+  };
+  suggestion: {
+    mapping: Mapping | null;
+    positionUnambiguous: boolean;
+    candidates: PositionCandidateJson[];
+    problems: { code: string; column: string; unit?: string; message: string }[];
+    notes: string[];
+    /** Optional fields found even when the position is unresolved (when the server sends them). */
+    fields?: Omit<Mapping, 'position'>;
+  };
+}
+
+/** The first bytes of a file sent for the preview: enough for ~20 rows of any sane table. */
+export const PREVIEW_BYTES = 262_144;

@@ -1,0 +1,83 @@
+'use client';
+
+import { useMemo } from 'react';
+import { tracerStyle } from '@/lib/tracers';
+import { ScatterCanvas, type AxisSpec } from './scatter-canvas';
+
+/** Longitude wrapped into [0°, 360°) for ticks and readout. */
+const wrap360 = (lDeg: number) => ((lDeg % 360) + 360) % 360;
+
+const L_AXIS: AxisSpec = { symbol: 'l', label: 'Galactic longitude l', unit: '°', reversed: true };
+const L_AXIS_WRAPPED: AxisSpec = { ...L_AXIS, toDisplay: wrap360 };
+const B_AXIS: AxisSpec = { symbol: 'b', label: 'Galactic latitude b', unit: '°' };
+
+/**
+ * Galactic longitudes (degrees, [0, 360)) of interleaved (l, b, v) Float32 triples as a flat
+ * array for plotting. When the points straddle l = 0° (a catalog of the inner Galaxy from
+ * l = 340° to 20°, say), longitudes above 180° are shifted by −360° so the plot is one
+ * contiguous strip; the returned axis then prints ticks wrapped back into [0°, 360°).
+ */
+export function plottedLongitudes(points: Float32Array): { lDeg: Float32Array; axis: AxisSpec } {
+  const n = Math.floor(points.length / 3);
+  let lo = Infinity;
+  let hi = -Infinity;
+  let loWrapped = Infinity;
+  let hiWrapped = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const l = points[3 * i];
+    if (l !== l) continue;
+    const lw = l > 180 ? l - 360 : l;
+    if (l < lo) lo = l;
+    if (l > hi) hi = l;
+    if (lw < loWrapped) loWrapped = lw;
+    if (lw > hiWrapped) hiWrapped = lw;
+  }
+  const wrapped = hiWrapped - loWrapped < hi - lo;
+  const lDeg = new Float32Array(n);
+  for (let i = 0; i < n; i++) {
+    const l = points[3 * i];
+    lDeg[i] = wrapped && l > 180 ? l - 360 : l;
+  }
+  return { lDeg, axis: wrapped ? L_AXIS_WRAPPED : L_AXIS };
+}
+
+/** Every `offset`-th value of interleaved (l, b, v) triples: 1 for b, 2 for v. */
+export function column(points: Float32Array, offset: 1 | 2): Float32Array {
+  const n = Math.floor(points.length / 3);
+  const out = new Float32Array(n);
+  for (let i = 0; i < n; i++) out[i] = points[3 * i + offset];
+  return out;
+}
+
+/**
+ * The catalog on the sky in Galactic coordinates: l grows to the left, as the Milky Way is
+ * drawn, b upwards. `points` are the interleaved (l, b, v) triples of the `/points` endpoint.
+ */
+export function SkyPlot({
+  points,
+  kind,
+  name,
+}: {
+  points: Float32Array;
+  kind: string;
+  name: string;
+}) {
+  const { lDeg, axis } = useMemo(() => plottedLongitudes(points), [points]);
+  const bDeg = useMemo(() => column(points, 1), [points]);
+  const t = tracerStyle(kind);
+  return (
+    <ScatterCanvas
+      xs={lDeg}
+      ys={bDeg}
+      x={axis}
+      y={B_AXIS}
+      colour={t.colour}
+      shape={t.shape}
+      legend={`${name} (${t.label})`}
+      title={`Sky plot of ${name}`}
+      fileStem={`${name}-sky`}
+      aspect={0.4}
+      testId="sky-plot"
+    />
+  );
+}

@@ -1,13 +1,24 @@
-import { EmptyState, PageHeader } from '@/components/ui/panel';
+import { ComplexesSection } from '@/components/link-runs/complexes-section';
+import { PageHeader } from '@/components/ui/panel';
+import { pageProjectRole } from '@/lib/auth/page-user';
 
-export default function ComplexesPage() {
+export default async function ComplexesPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<{ run?: string | string[] }>;
+}) {
+  const { projectId } = await params;
+  const { run } = await searchParams;
+  await pageProjectRole(projectId);
   return (
     <>
-      <PageHeader title="Complexes" lead="Groups of linked tracers — gas and young stars that belong together." />
-      <EmptyState title="No complexes yet">
-        Complexes come from link runs. Start a link run from two or more ready catalogs; its complexes are listed here
-        for review when it finishes.
-      </EmptyState>
+      <PageHeader
+        title="Complexes"
+        lead="Groups of linked tracers — gas and young stars that belong together. Sort, filter and open them to review."
+      />
+      <ComplexesSection projectId={projectId} runId={typeof run === 'string' && run ? run : null} />
     </>
   );
 }

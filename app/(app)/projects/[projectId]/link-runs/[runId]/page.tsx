@@ -1,0 +1,13 @@
+import { RunDetail } from '@/components/link-runs/run-detail';
+import { pageProjectRole } from '@/lib/auth/page-user';
+import { roleAtLeast } from '@/lib/auth/roles';
+
+export default async function LinkRunPage({
+  params,
+}: {
+  params: Promise<{ projectId: string; runId: string }>;
+}) {
+  const { projectId, runId } = await params;
+  const { role } = await pageProjectRole(projectId);
+  return <RunDetail projectId={projectId} runId={runId} canEdit={roleAtLeast(role, 'editor')} />;
+}

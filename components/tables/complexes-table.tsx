@@ -1,0 +1,489 @@
+'use client';
+
+import { keepPreviousData, useQuery } from '@tanstack/react-query';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  useReactTable,
+  type PaginationState,
+  type SortingState,
+} from '@tanstack/react-table';
+import Link from 'next/link';
+import { useState } from 'react';
+import { api } from '@/lib/api-client';
+import { TRACER_KINDS, tracerStyle } from '@/lib/tracers';
+import { REVIEW_TONE, REVIEW_WORDS, fmt, fmtCount } from '@/components/link-runs/format';
+import type { Complex, ComplexPage } from '@/components/link-runs/types';
+import { Button } from '@/components/ui/button';
+import { ErrorNote } from '@/components/ui/panel';
+import { TracerGlyph } from '@/components/ui/tracer-badge';
+
+const PAGE_SIZES = [25, 50, 100, 250, 500];
+/** Columns whose cells are numbers (right-aligned, monospaced). */
+const NUMERIC = new Set(['id', 'size', 'l', 'b', 'v', 'maxSepArcsec', 'maxDvKms', 'reliability']);
+
+const col = createColumnHelper<Complex>();
+
+/** Column definitions; `href` builds the link to a complex's page. */
+function columns(href: (id: string) => string) {
+  return [
+    col.accessor('id', {
+      header: '#',
+      cell: (c) => (
+        <Link
+          href={href(c.getValue())}
+          className="text-accent hover:underline"
+          aria-label={`Complex ${c.getValue()}`}
+        >
+          {c.getValue()}
+        </Link>
+      ),
+    }),
+    col.accessor('name', {
+      header: 'name',
+      enableSorting: false,
+      cell: (c) => (
+        <Link href={href(c.row.original.id)} className="hover:underline">
+          {c.getValue() ?? <span className="text-ink-soft">unnamed</span>}
+        </Link>
+      ),
+    }),
+    col.accessor('size', {
+      header: 'size',
+      cell: (c) => (
+        <span
+          className={c.row.original.overCap ? 'font-semibold text-danger' : ''}
+          title={c.row.original.overCap ? 'over the size cap' : undefined}
+        >
+          {fmtCount(c.getValue())}
+        </span>
+      ),
+    }),
+    col.display({
+      id: 'classes',
+      header: 'classes',
+      cell: (c) => (
+        <span className="flex gap-2">
+          {TRACER_KINDS.filter((k) => c.row.original.counts[k] > 0).map((k) => (
+            <span
+              key={k}
+              className="inline-flex items-center gap-0.5"
+              title={`${c.row.original.counts[k]} ${tracerStyle(k).description}`}
+            >
+              <TracerGlyph kind={k} />
+              <span className="text-xs">{tracerStyle(k).label}</span>
+              <span className="num text-xs text-ink-soft">{c.row.original.counts[k]}</span>
+            </span>
+          ))}
+        </span>
+      ),
+    }),
+    col.accessor('l', { header: 'l (°)', cell: (c) => fmt(c.getValue(), 4) }),
+    col.accessor('b', { header: 'b (°)', cell: (c) => fmt(c.getValue(), 4) }),
+    col.accessor('v', {
+      header: () => (
+        <>
+          v<sub>LSR</sub> (km/s)
+        </>
+      ),
+      cell: (c) => fmt(c.getValue(), 2),
+    }),
+    col.accessor('maxSepArcsec', { header: 'max sep (″)', cell: (c) => fmt(c.getValue(), 1) }),
+    col.accessor('maxDvKms', { header: 'max Δv (km/s)', cell: (c) => fmt(c.getValue(), 2) }),
+    col.accessor('reliability', { header: 'reliability', cell: (c) => fmt(c.getValue(), 3) }),
+    col.accessor('review', {
+      header: 'review',
+      cell: (c) => {
+        const r = c.getValue() ?? 'unreviewed';
+        return (
+          <span className={REVIEW_TONE[r]} title={c.row.original.reviewNote ?? undefined}>
+            {REVIEW_WORDS[r]}
+          </span>
+        );
+      },
+    }),
+  ];
+}
+
+type Filters = {
+  minSize: string;
+  maxSize: string;
+  maxSepArcsec: string;
+  maxDvKms: string;
+  minReliability: string;
+  review: string;
+  q: string;
+  classes: string[];
+};
+const NO_FILTERS: Filters = {
+  minSize: '',
+  maxSize: '',
+  maxSepArcsec: '',
+  maxDvKms: '',
+  minReliability: '',
+  review: '',
+  q: '',
+  classes: [],
+};
+const NUMBER_FILTERS = [
+  ['minSize', 'Size from'],
+  ['maxSize', 'Size to'],
+  ['maxSepArcsec', 'Max separation'],
+  ['maxDvKms', 'Max Δv'],
+  ['minReliability', 'Min reliability'],
+] as const;
+
+/** The filters as query parameters, or a sentence naming the field and value that is wrong. */
+function filterParams(f: Filters): { params: Record<string, string> } | { problem: string } {
+  const params: Record<string, string> = {};
+  for (const [key, label] of NUMBER_FILTERS) {
+    const text = f[key].trim();
+    if (text === '') continue;
+    const x = Number(text);
+    if (!Number.isFinite(x)) return { problem: `${label}: “${text}” is not a number.` };
+    if (x < 0) return { problem: `${label}: ${text} is below 0.` };
+    params[key] = String(x);
+  }
+  if (params.minSize && params.maxSize && Number(params.minSize) > Number(params.maxSize)) {
+    return {
+      problem: `Size: the lower bound ${params.minSize} is above the upper bound ${params.maxSize}.`,
+    };
+  }
+  if (params.minReliability && Number(params.minReliability) > 1) {
+    return {
+      problem: `Min reliability: ${params.minReliability} is above 1; reliability runs from 0 to 1.`,
+    };
+  }
+  if (f.classes.length) params.classes = f.classes.join(',');
+  if (f.review) params.review = f.review;
+  if (f.q.trim()) params.q = f.q.trim();
+  return { params };
+}
+
+const input = 'num w-20 rounded border border-rule bg-white px-2 py-1 text-sm';
+
+/**
+ * A run's complexes, paged, sorted and filtered by the server: click a header to sort (ascending,
+ * then descending); filter by size, classes present, separation, Δv, reliability, review state
+ * and member name. Each row links to the complex's page.
+ */
+export function ComplexesTable({
+  runId,
+  projectId,
+  kinds,
+}: {
+  runId: string;
+  projectId: string;
+  /** Tracer classes of the run's catalogs, offered as "classes present" filters. */
+  kinds: string[];
+}) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'id', desc: false }]);
+  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 50 });
+  const [draft, setDraft] = useState<Filters>(NO_FILTERS);
+  const [applied, setApplied] = useState<Record<string, string>>({});
+  const [problem, setProblem] = useState<string | null>(null);
+
+  const sort = sorting[0] ?? { id: 'id', desc: false };
+  const search = new URLSearchParams({
+    page: String(pagination.pageIndex + 1),
+    pageSize: String(pagination.pageSize),
+    sort: sort.id,
+    dir: sort.desc ? 'desc' : 'asc',
+    ...applied,
+  });
+  const { data, error, isFetching } = useQuery({
+    queryKey: ['complexes', runId, search.toString()],
+    queryFn: () => api<ComplexPage>(`/api/link-runs/${runId}/complexes?${search}`),
+    placeholderData: keepPreviousData,
+  });
+  const total = data?.total ?? 0;
+  const pageCount = Math.max(1, Math.ceil(total / pagination.pageSize));
+  const base = `/projects/${projectId}/link-runs/${runId}/complexes`;
+
+  // The app does not run the React Compiler; the table instance is used only in this render.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const table = useReactTable({
+    data: data?.complexes ?? [],
+    columns: columns((id) => `${base}/${id}`),
+    getCoreRowModel: getCoreRowModel(),
+    manualPagination: true,
+    manualSorting: true,
+    enableMultiSort: false,
+    enableSortingRemoval: false,
+    sortDescFirst: false,
+    pageCount,
+    rowCount: total,
+    state: { sorting, pagination },
+    onSortingChange: (updater) => {
+      setSorting(updater);
+      setPagination((p) => ({ ...p, pageIndex: 0 }));
+    },
+    onPaginationChange: setPagination,
+    getRowId: (r) => r.id,
+  });
+
+  const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
+  const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
+  const offered = TRACER_KINDS.filter((k) => kinds.includes(k));
+
+  return (
+    <div className="space-y-3">
+      <form
+        className="space-y-2 rounded-md border border-rule bg-paper-deep/30 p-3"
+        aria-label="Filter complexes"
+        onSubmit={(e) => {
+          e.preventDefault();
+          const checked = filterParams(draft);
+          if ('problem' in checked) {
+            setProblem(checked.problem);
+            return;
+          }
+          setProblem(null);
+          setApplied(checked.params);
+          setPagination((p) => ({ ...p, pageIndex: 0 }));
+        }}
+      >
+        <div className="flex flex-wrap items-center gap-x-5 gap-y-2 text-sm">
+          <label className="flex items-center gap-1">
+            <span className="font-medium">Size</span>
+            <input
+              aria-label="Size from"
+              inputMode="numeric"
+              className={input}
+              value={draft.minSize}
+              onChange={(e) => setDraft({ ...draft, minSize: e.target.value })}
+            />
+            <span className="text-ink-soft">to</span>
+            <input
+              aria-label="Size to"
+              inputMode="numeric"
+              className={input}
+              value={draft.maxSize}
+              onChange={(e) => setDraft({ ...draft, maxSize: e.target.value })}
+            />
+          </label>
+          <label className="flex items-center gap-1">
+            <span className="font-medium">max sep ≤</span>
+            <input
+              aria-label="Max separation"
+              inputMode="decimal"
+              className={input}
+              value={draft.maxSepArcsec}
+              onChange={(e) => setDraft({ ...draft, maxSepArcsec: e.target.value })}
+            />
+            <span className="text-xs text-ink-soft">″</span>
+          </label>
+          <label className="flex items-center gap-1">
+            <span className="font-medium">max Δv ≤</span>
+            <input
+              aria-label="Max Δv"
+              inputMode="decimal"
+              className={input}
+              value={draft.maxDvKms}
+              onChange={(e) => setDraft({ ...draft, maxDvKms: e.target.value })}
+            />
+            <span className="text-xs text-ink-soft">km/s</span>
+          </label>
+          <label className="flex items-center gap-1">
+            <span className="font-medium">reliability ≥</span>
+            <input
+              aria-label="Min reliability"
+              inputMode="decimal"
+              className={input}
+              value={draft.minReliability}
+              onChange={(e) => setDraft({ ...draft, minReliability: e.target.value })}
+            />
+          </label>
+        </div>
+        <div className="flex flex-wrap items-center gap-x-5 gap-y-2 text-sm">
+          {offered.length > 1 && (
+            <fieldset className="flex items-center gap-3">
+              <legend className="float-left mr-1 font-medium">Classes present</legend>
+              {offered.map((k) => (
+                <label key={k} className="flex items-center gap-1">
+                  <input
+                    type="checkbox"
+                    className="accent-accent"
+                    checked={draft.classes.includes(k)}
+                    onChange={() =>
+                      setDraft({
+                        ...draft,
+                        classes: draft.classes.includes(k)
+                          ? draft.classes.filter((x) => x !== k)
+                          : [...draft.classes, k],
+                      })
+                    }
+                  />
+                  <TracerGlyph kind={k} />
+                  {tracerStyle(k).label}
+                </label>
+              ))}
+            </fieldset>
+          )}
+          <label className="flex items-center gap-1">
+            <span className="font-medium">Review</span>
+            <select
+              aria-label="Review state"
+              className="rounded border border-rule bg-white px-2 py-1"
+              value={draft.review}
+              onChange={(e) => setDraft({ ...draft, review: e.target.value })}
+            >
+              <option value="">any</option>
+              <option value="unreviewed">not reviewed</option>
+              <option value="accepted">accepted</option>
+              <option value="doubtful">doubtful</option>
+              <option value="rejected">rejected</option>
+            </select>
+          </label>
+          <input
+            type="search"
+            placeholder="Member name contains…"
+            aria-label="Search member names"
+            className="w-56 rounded border border-rule bg-white px-2 py-1"
+            value={draft.q}
+            onChange={(e) => setDraft({ ...draft, q: e.target.value })}
+          />
+          <Button type="submit" variant="quiet" className="px-2.5 py-1">
+            Apply filters
+          </Button>
+          <Button
+            type="button"
+            variant="quiet"
+            className="px-2.5 py-1"
+            disabled={Object.keys(applied).length === 0 && draft === NO_FILTERS}
+            onClick={() => {
+              setDraft(NO_FILTERS);
+              setApplied({});
+              setProblem(null);
+              setPagination((p) => ({ ...p, pageIndex: 0 }));
+            }}
+          >
+            Clear
+          </Button>
+        </div>
+      </form>
+      <ErrorNote>{problem ?? (error && `Could not load complexes: ${error.message}`)}</ErrorNote>
+
+      <div
+        className={`overflow-x-auto rounded-md border border-rule bg-white ${isFetching ? 'opacity-70' : ''}`}
+      >
+        <table className="w-full text-sm" aria-label="Complexes" aria-busy={isFetching}>
+          <thead className="border-b border-rule bg-paper-deep/60 text-xs text-ink-soft">
+            {table.getHeaderGroups().map((hg) => (
+              <tr key={hg.id}>
+                {hg.headers.map((h) => {
+                  const dir = h.column.getIsSorted();
+                  const label = flexRender(h.column.columnDef.header, h.getContext());
+                  return (
+                    <th
+                      key={h.id}
+                      scope="col"
+                      aria-sort={
+                        dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : undefined
+                      }
+                      className={`px-2 py-1.5 font-medium whitespace-nowrap ${NUMERIC.has(h.column.id) ? 'text-right' : 'text-left'}`}
+                    >
+                      {h.column.getCanSort() ? (
+                        <button
+                          type="button"
+                          className={`inline-flex items-center gap-1 hover:text-ink ${dir ? 'text-ink' : ''}`}
+                          onClick={h.column.getToggleSortingHandler()}
+                        >
+                          {label}
+                          <span aria-hidden className="w-2">
+                            {dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : ''}
+                          </span>
+                        </button>
+                      ) : (
+                        label
+                      )}
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-rule/60">
+            {table.getRowModel().rows.map((r) => (
+              <tr key={r.id} className="hover:bg-paper-deep/40">
+                {r.getVisibleCells().map((c) => (
+                  <td
+                    key={c.id}
+                    className={`px-2 py-1 whitespace-nowrap ${NUMERIC.has(c.column.id) ? 'num' : ''}`}
+                  >
+                    {flexRender(c.column.columnDef.cell, c.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {data && data.complexes.length === 0 && (
+          <p className="px-3 py-6 text-center text-sm text-ink-soft">
+            {Object.keys(applied).length
+              ? 'No complex matches. Widen the filters or clear them.'
+              : 'This run found no complexes.'}
+          </p>
+        )}
+      </div>
+
+      <div className="flex flex-wrap items-center gap-3 text-sm">
+        <span className="num text-ink-soft" data-testid="complexes-range">
+          {fmtCount(first)}–{fmtCount(last)} of {fmtCount(total)}
+        </span>
+        <label className="flex items-center gap-1.5">
+          <span className="text-ink-soft">Complexes per page</span>
+          <select
+            className="rounded border border-rule bg-white px-2 py-1"
+            value={pagination.pageSize}
+            onChange={(e) => setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })}
+          >
+            {PAGE_SIZES.map((n) => (
+              <option key={n} value={n}>
+                {n}
+              </option>
+            ))}
+          </select>
+        </label>
+        <span className="ml-auto flex items-center gap-1.5">
+          <Button
+            variant="quiet"
+            className="px-2 py-1"
+            onClick={() => table.firstPage()}
+            disabled={!table.getCanPreviousPage()}
+          >
+            First
+          </Button>
+          <Button
+            variant="quiet"
+            className="px-2 py-1"
+            onClick={() => table.previousPage()}
+            disabled={!table.getCanPreviousPage()}
+          >
+            Previous
+          </Button>
+          <span className="num px-1">
+            page {pagination.pageIndex + 1} of {pageCount}
+          </span>
+          <Button
+            variant="quiet"
+            className="px-2 py-1"
+            onClick={() => table.nextPage()}
+            disabled={!table.getCanNextPage()}
+          >
+            Next
+          </Button>
+          <Button
+            variant="quiet"
+            className="px-2 py-1"
+            onClick={() => table.lastPage()}
+            disabled={!table.getCanNextPage()}
+          >
+            Last
+          </Button>
+        </span>
+      </div>
+    </div>
+  );
+}

@@ -200,3 +200,104 @@ export const catalogRejects = mysqlTable(
 );
 
 // Rows of each catalog live in a table per catalog, created by lib/services/catalog-tables.ts.
+
+export const RUN_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export const REVIEWS = ['accepted', 'doubtful', 'rejected'] as const;
+
+/** A link run: an immutable record of its parameters, and its results once done. */
+export const linkRuns = mysqlTable(
+  'link_runs',
+  {
+    id: id().primaryKey(),
+    projectId: id('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 200 }).notNull(),
+    status: mysqlEnum('status', RUN_STATUSES).notNull().default('queued'),
+    progress: double('progress').notNull().default(0),
+    params: json('params').$type<Record<string, unknown>>().notNull(),
+    catalogIds: json('catalog_ids').$type<string[]>().notNull(),
+    summary: json('summary').$type<Record<string, unknown>>(),
+    error: text('error'),
+    jobId: bigint('job_id', { mode: 'number', unsigned: true }),
+    createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    startedAt: timestamp('started_at', { fsp: 3 }),
+    finishedAt: timestamp('finished_at', { fsp: 3 }),
+  },
+  (t) => [index('link_runs_project').on(t.projectId, t.createdAt)],
+);
+
+/** One link between two sources; `row_*` is the 1-based data row of the uploaded file. */
+export const links = mysqlTable(
+  'links',
+  {
+    runId: id('run_id').notNull(),
+    id: int('id').notNull(),
+    catalogA: id('catalog_a').notNull(),
+    rowA: int('row_a').notNull(),
+    catalogB: id('catalog_b').notNull(),
+    rowB: int('row_b').notNull(),
+    sepArcsec: double('sep_arcsec').notNull(),
+    dvKms: double('dv_kms'),
+    radiusArcsec: double('radius_arcsec').notNull(),
+    reliability: double('reliability'),
+    complexId: int('complex_id').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.runId, t.id] }), index('links_complex').on(t.runId, t.complexId)],
+);
+
+/** A complex: the linked sources that belong together, with what the tables sort on. */
+export const complexes = mysqlTable(
+  'complexes',
+  {
+    runId: id('run_id').notNull(),
+    id: int('id').notNull(),
+    size: int('size').notNull(),
+    linkCount: int('link_count').notNull(),
+    nHi: int('n_hi').notNull(),
+    nCo: int('n_co').notNull(),
+    nHii: int('n_hii').notNull(),
+    nOb: int('n_ob').notNull(),
+    nOther: int('n_other').notNull(),
+    l: double('l').notNull(),
+    b: double('b').notNull(),
+    v: double('v'),
+    maxSepArcsec: double('max_sep_arcsec').notNull(),
+    maxDvKms: double('max_dv_kms'),
+    reliability: double('reliability'),
+    overCap: boolean('over_cap').notNull(),
+    name: varchar('name', { length: 128 }),
+    review: mysqlEnum('review', REVIEWS),
+    reviewNote: text('review_note'),
+    reviewedBy: id('reviewed_by'),
+    reviewedAt: timestamp('reviewed_at', { fsp: 3 }),
+  },
+  (t) => [
+    primaryKey({ columns: [t.runId, t.id] }),
+    index('complexes_size').on(t.runId, t.size),
+    index('complexes_l').on(t.runId, t.l),
+    index('complexes_b').on(t.runId, t.b),
+    index('complexes_v').on(t.runId, t.v),
+    index('complexes_sep').on(t.runId, t.maxSepArcsec),
+    index('complexes_dv').on(t.runId, t.maxDvKms),
+    index('complexes_rel').on(t.runId, t.reliability),
+    index('complexes_review').on(t.runId, t.review),
+  ],
+);
+
+export const complexMembers = mysqlTable(
+  'complex_members',
+  {
+    runId: id('run_id').notNull(),
+    complexId: int('complex_id').notNull(),
+    catalogId: id('catalog_id').notNull(),
+    row: int('row').notNull(),
+    name: varchar('name', { length: 128 }),
+  },
+  (t) => [
+    primaryKey({ columns: [t.runId, t.complexId, t.catalogId, t.row] }),
+    index('members_source').on(t.runId, t.catalogId, t.row),
+    index('members_name').on(t.runId, t.name),
+  ],
+);

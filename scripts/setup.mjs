@@ -68,6 +68,8 @@ export function profileSettings(profile) {
     LANEWISE_DATA_DIR: path.join(db.dir, 'files'),
     LANEWISE_MODE: process.env.LANEWISE_MODE ?? 'local',
     // Tests check the 413 of the upload limit without sending half a gigabyte.
+    // Tests kill a worker on purpose; its job is picked up again after this many seconds.
+    WORKER_STALE_SECONDS: isTest ? '6' : (process.env.WORKER_STALE_SECONDS ?? '30'),
     UPLOAD_LIMIT_MB: isTest ? '5' : (process.env.UPLOAD_LIMIT_MB ?? '512'),
     NEXT_DIST_DIR: isTest ? (slot ? `.next-test-${slot}` : '.next-test') : '.next',
     NEXT_TELEMETRY_DISABLED: '1',
@@ -83,6 +85,18 @@ export function runStep(label, cmd, args, env) {
   console.log(`[${label}] ${[path.basename(cmd), ...args].join(' ')}`);
   const r = spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env });
   return r.status ?? 1;
+}
+
+/**
+ * Like runStep, but without blocking this process: the services it started keep having their
+ * output read (a full pipe would stall them) and are restarted if they die.
+ */
+export function runStepAsync(label, cmd, args, env) {
+  console.log(`[${label}] ${[path.basename(cmd), ...args].join(' ')}`);
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, { cwd: root, stdio: 'inherit', env });
+    child.on('exit', (code) => resolve(code ?? 1));
+  });
 }
 
 export function migrate(env) {
@@ -115,9 +129,13 @@ export function buildIfStale(env) {
 }
 
 const children = new Set();
+let stopping = false;
 
-/** Starts a long-running service whose output is prefixed with its name. */
-export function startService(name, cmd, args, env) {
+/**
+ * Starts a long-running service whose output is prefixed with its name. With `restart`, a
+ * service that dies is started again, as a process manager would in production.
+ */
+export function startService(name, cmd, args, env, { restart = false } = {}) {
   const child = spawn(cmd, args, { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
   const prefix = (stream, out) => {
     let buf = '';
@@ -131,11 +149,18 @@ export function startService(name, cmd, args, env) {
   prefix(child.stdout, process.stdout);
   prefix(child.stderr, process.stderr);
   children.add(child);
-  child.on('exit', () => children.delete(child));
+  child.on('exit', (code, signal) => {
+    children.delete(child);
+    if (restart && !stopping) {
+      console.log(`[${name}] exited (${signal ?? code}); starting it again`);
+      setTimeout(() => !stopping && startService(name, cmd, args, env, { restart }), 500);
+    }
+  });
   return child;
 }
 
 export function stopServices() {
+  stopping = true;
   for (const c of children) {
     try {
       process.kill(-c.pid, 'SIGTERM');
@@ -179,9 +204,11 @@ export async function waitForHttp(url, timeoutMs = 90_000) {
 /** Starts the mail catcher, the worker and the web server of a profile. */
 export async function startAppServices(settings) {
   const { env, appPort, mailPort, url } = settings;
-  startService('mail', bin('tsx'), ['lib/mail/catcher-main.ts'], env);
+  // `node --import tsx` runs TypeScript in one process (the tsx CLI adds a parent process),
+  // so a signal to the pid a worker records reaches the worker itself.
+  startService('mail', process.execPath, ['--import', 'tsx', 'lib/mail/catcher-main.ts'], env);
   await waitForPort(mailPort);
-  startService('worker', bin('tsx'), ['lib/jobs/main.ts'], env);
+  startService('worker', process.execPath, ['--import', 'tsx', 'lib/jobs/main.ts'], env, { restart: true });
   startService('web', bin('next'), ['start', '-H', '127.0.0.1', '-p', String(appPort)], env);
   await waitForHttp(`${url}/api/health`);
 }

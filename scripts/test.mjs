@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { stopDb, resetDb } from '../db/server.mjs';
 import {
-  bin, buildIfStale, ensureChromium, ensureNpmPackages, migrate, profileSettings, root, runStep,
+  bin, buildIfStale, ensureChromium, ensureNpmPackages, migrate, profileSettings, root, runStep, runStepAsync,
   startAppServices, startDatabase, stopServices,
 } from './setup.mjs';
 
@@ -28,7 +28,7 @@ async function main() {
 
   const report = path.join(settings.db.dir, 'vitest.json');
   const only = process.argv.slice(2);
-  const status = runStep('vitest', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile=${report}`, ...only], env);
+  const status = await runStepAsync('vitest', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile=${report}`, ...only], env);
   if (status !== 0) failures.push('tests');
   if (fs.existsSync(report)) {
     const r = JSON.parse(fs.readFileSync(report, 'utf8'));

@@ -1,2 +1,3 @@
 // Every job kind registers its handler on import; the worker imports this module once.
 import './ingest';
+import './link-run';

@@ -5,6 +5,8 @@ import './register';
 
 const POLL_MS = Number(process.env.WORKER_POLL_MS ?? 500);
 const STALE_SECONDS = Number(process.env.WORKER_STALE_SECONDS ?? 30);
+// A beat well inside the stale limit, so a live job is never taken for a dead one.
+const HEARTBEAT_MS = Math.min(5000, (STALE_SECONDS * 1000) / 3);
 
 export class JobCancelled extends Error {
   constructor() {
@@ -45,7 +47,7 @@ async function runOne(workerId: string): Promise<boolean> {
         if (cancel) abort.abort();
       })
       .catch(() => undefined);
-  }, 5000);
+  }, HEARTBEAT_MS);
   try {
     await handler.run(ctx);
     await finishJob(job.id);
@@ -70,7 +72,7 @@ export async function runWorker(opts: { once?: boolean } = {}) {
   console.log(`[worker] ${workerId} polling for jobs`);
   let lastRecovery = 0;
   while (!stopping) {
-    if (Date.now() - lastRecovery > 10_000) {
+    if (Date.now() - lastRecovery > Math.min(10_000, STALE_SECONDS * 500)) {
       lastRecovery = Date.now();
       const recovered = await recoverStaleJobs(STALE_SECONDS).catch(() => []);
       for (const r of recovered) {

@@ -1,5 +1,5 @@
 import fs from 'node:fs';
-import { Readable, Transform } from 'node:stream';
+import { Transform } from 'node:stream';
 import { eq, sql } from 'drizzle-orm';
 import { db, pool } from '@/db/client';
 import { catalogs } from '@/db/schema';
@@ -8,6 +8,7 @@ import type { Mapping } from '@/lib/ingest/mapping';
 import type { CanonicalColumns, Rejection } from '@/lib/ingest/canonical';
 import { makeBatchNormaliser } from '@/lib/ingest/normalise';
 import { openTable } from '@/lib/ingest/table';
+import { loadTsv, tsvCell } from './bulk-load';
 import { pointsPath } from './catalogs';
 import { createLoadTable, dropRowsTables, finaliseLoadTable, ROW_COLUMNS, rowsTableName } from './catalog-tables';
 
@@ -15,16 +16,8 @@ import { createLoadTable, dropRowsTables, finaliseLoadTable, ROW_COLUMNS, rowsTa
 const MAX_STORED_REJECTS = 100_000;
 
 
-/** A TSV cell for LOAD DATA: `\N` is NULL; backslash, tab and newline are escaped. */
-function tsvCell(v: string | number | null): string {
-  if (v === null) return '\\N';
-  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N';
-  return v.replace(/[\\\t\n\r]/g, (m) => (m === '\\' ? '\\\\' : m === '\t' ? '\\t' : m === '\n' ? '\\n' : '\\r'));
-}
-
 /**
- * Stores a batch of rows with LOAD DATA LOCAL INFILE fed from memory: several times faster
- * than multi-row INSERT statements for millions of rows.
+ * Stores a batch of accepted rows in the catalog's load table.
  */
 async function insertRows(catalogId: string, c: CanonicalColumns) {
   if (!c.count) return;
@@ -46,11 +39,7 @@ async function insertRows(catalogId: string, c: CanonicalColumns) {
       tsvCell(JSON.stringify(c.original[i])),
     ].join('\t');
   }
-  const body = parts.join('\n') + '\n';
-  await pool().query({
-    sql: `LOAD DATA LOCAL INFILE 'rows.tsv' INTO TABLE ${rowsTableName(catalogId, true)} CHARACTER SET utf8mb4 (${ROW_COLUMNS})`,
-    infileStreamFactory: () => Readable.from([Buffer.from(body)]),
-  });
+  await loadTsv(`\`${rowsTableName(catalogId, true)}\``, ROW_COLUMNS, parts);
 }
 
 async function insertRejects(catalogId: string, rejected: Rejection[]) {

@@ -1,0 +1,16 @@
+import { requireProjectRole } from '@/lib/auth/access';
+import { json, jsonBody, route } from '@/lib/http/handler';
+import { linkRunSchema, listRuns, startLinkRun } from '@/lib/services/link-runs';
+
+type P = { projectId: string };
+
+export const GET = route<P>(async (req, { projectId }) => {
+  await requireProjectRole(projectId, 'viewer', req);
+  return json({ runs: await listRuns(projectId) });
+});
+
+export const POST = route<P>(async (req, { projectId }) => {
+  const params = linkRunSchema.parse(await jsonBody(req));
+  const { user } = await requireProjectRole(projectId, 'editor', req, 'start link runs');
+  return json({ run: await startLinkRun(projectId, user.id, params) }, 202);
+});

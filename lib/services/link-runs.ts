@@ -1,0 +1,199 @@
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import { db } from '@/db/client';
+import { catalogs, jobs, linkRuns, users } from '@/db/schema';
+import { newId } from '@/lib/auth/secrets';
+import { HttpError, notFound } from '@/lib/http/errors';
+import { requestCancel } from './jobs';
+
+/** The link-run body of API.md, with the options a careful user needs made explicit. */
+export const linkRunSchema = z.object({
+  catalogIds: z.array(z.string()).min(2, 'Choose at least two catalogs.').max(8, 'Choose at most eight catalogs.'),
+  radius: z.discriminatedUnion('mode', [
+    z.object({ mode: z.literal('fixed'), arcsec: z.number().min(0).max(36_000) }),
+    z.object({ mode: z.literal('scaled'), factor: z.number().positive().max(100), minArcsec: z.number().min(0).max(36_000) }),
+  ]),
+  velocity: z.discriminatedUnion('mode', [
+    z.object({ mode: z.literal('fixed'), kms: z.number().min(0).max(1000) }),
+    z.object({ mode: z.literal('scaled'), factor: z.number().positive().max(100) }),
+    z.object({ mode: z.literal('ignore') }),
+  ]),
+  linkMode: z.enum(['all', 'nearest', 'mutual']).default('all'),
+  chanceTrials: z.number().int().min(0).max(10).default(0),
+  missingVelocity: z.enum(['exclude', 'position-only']).default('exclude'),
+  complexCap: z.number().int().min(2).max(100_000).default(500),
+  name: z.string().trim().max(200).optional(),
+});
+
+export type LinkRunParams = z.infer<typeof linkRunSchema>;
+
+export type RunCatalog = { id: string; name: string; kind: string; rowCount: number };
+
+/** The chosen catalogs, in the order given; each must be a ready catalog of this project. */
+export async function runCatalogs(projectId: string, ids: string[]): Promise<RunCatalog[]> {
+  if (new Set(ids).size !== ids.length) throw new HttpError(400, 'duplicate_catalog', 'A catalog is chosen twice.');
+  const rows = await db
+    .select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind, status: catalogs.status, rowCount: catalogs.rowCount, projectId: catalogs.projectId })
+    .from(catalogs)
+    .where(inArray(catalogs.id, ids));
+  return ids.map((id, i) => {
+    const c = rows.find((r) => r.id === id);
+    if (!c || c.projectId !== projectId) throw new HttpError(400, 'unknown_catalog', `catalogIds[${i}]: no such catalog in this project.`);
+    if (c.status !== 'ready') throw new HttpError(409, 'catalog_not_ready', `catalogIds[${i}]: catalog "${c.name}" is ${c.status}, not ready.`);
+    return { id: c.id, name: c.name, kind: c.kind, rowCount: c.rowCount };
+  });
+}
+
+/** Records the run (immutable parameters) and its job; the worker does the rest. */
+export async function startLinkRun(projectId: string, userId: string, params: LinkRunParams) {
+  const chosen = await runCatalogs(projectId, params.catalogIds);
+  const id = newId();
+  const name = params.name || `${chosen.map((c) => c.name).join(' × ')}`.slice(0, 200);
+  await db.transaction(async (tx) => {
+    const [job] = await tx.insert(jobs).values({ kind: 'link-run', projectId, payload: { runId: id }, createdBy: userId });
+    await tx.insert(linkRuns).values({ id, projectId, name, params: { ...params, name }, catalogIds: params.catalogIds, jobId: Number(job.insertId), createdBy: userId });
+  });
+  return { id, status: 'queued' as const };
+}
+
+/**
+ * A rough forecast of the work before a run starts: for each pair, the number of candidate
+ * pairs expected if sources were spread evenly over the sky area the two catalogs cover.
+ */
+export async function estimateLinkRun(projectId: string, params: LinkRunParams) {
+  const chosen = await runCatalogs(projectId, params.catalogIds);
+  const radiusArcsec = params.radius.mode === 'fixed' ? params.radius.arcsec : Math.max(params.radius.minArcsec, 60 * params.radius.factor);
+  const capSr = Math.PI * (radiusArcsec / 206_264.806) ** 2;
+  const pairs = [];
+  let candidates = 0;
+  for (let i = 0; i < chosen.length; i++) {
+    for (let j = i + 1; j < chosen.length; j++) {
+      const nA = chosen[i].rowCount;
+      const nB = chosen[j].rowCount;
+      // The Galactic plane within |b| < 5° is about 0.87 sr: where these tracers live.
+      const expectedCandidates = Math.round((nA * nB * capSr) / 0.87);
+      candidates += expectedCandidates;
+      pairs.push({ catalogA: chosen[i].id, catalogB: chosen[j].id, nA, nB, expectedCandidates });
+    }
+  }
+  const sources = chosen.reduce((s, c) => s + c.rowCount, 0);
+  const repeats = 1 + params.chanceTrials;
+  const workUnits = repeats * (sources + candidates);
+  // About two million sources or candidates a second on this class of machine (bench:match).
+  return { estimate: { sources, pairs, chanceRepeats: params.chanceTrials, workUnits, roughSeconds: Math.max(1, Math.round(workUnits / 2e6 + sources / 2e5)) } };
+}
+
+export type RunJson = {
+  id: string;
+  projectId: string;
+  name: string;
+  status: 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
+  progress: number;
+  params: Record<string, unknown>;
+  catalogs: { id: string; name: string; kind: string }[];
+  summary: Record<string, unknown> | null;
+  error: string | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  createdBy: { id: string; name: string } | null;
+};
+
+async function toRunJson(r: typeof linkRuns.$inferSelect, creatorName: string | null): Promise<RunJson> {
+  const cats = await db.select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind }).from(catalogs).where(inArray(catalogs.id, r.catalogIds));
+  let progress = r.progress;
+  if (r.status === 'running' && r.jobId) {
+    const [j] = await db.select({ progress: jobs.progress }).from(jobs).where(eq(jobs.id, r.jobId));
+    progress = j?.progress ?? progress;
+  }
+  return {
+    id: r.id,
+    projectId: r.projectId,
+    name: r.name,
+    status: r.status,
+    progress: r.status === 'done' ? 1 : progress,
+    params: r.params,
+    catalogs: r.catalogIds.map((id) => cats.find((c) => c.id === id) ?? { id, name: '(deleted catalog)', kind: 'other' }),
+    summary: r.status === 'done' ? r.summary ?? null : null,
+    error: r.error,
+    createdAt: r.createdAt.toISOString(),
+    startedAt: r.startedAt?.toISOString() ?? null,
+    finishedAt: r.finishedAt?.toISOString() ?? null,
+    createdBy: r.createdBy ? { id: r.createdBy, name: creatorName ?? '' } : null,
+  };
+}
+
+export async function listRuns(projectId: string): Promise<RunJson[]> {
+  const rows = await db
+    .select({ r: linkRuns, creatorName: users.name })
+    .from(linkRuns)
+    .leftJoin(users, eq(users.id, linkRuns.createdBy))
+    .where(eq(linkRuns.projectId, projectId))
+    .orderBy(desc(linkRuns.createdAt));
+  return Promise.all(rows.map((x) => toRunJson(x.r, x.creatorName)));
+}
+
+export async function getRun(runId: string): Promise<RunJson> {
+  const [x] = await db.select({ r: linkRuns, creatorName: users.name }).from(linkRuns).leftJoin(users, eq(users.id, linkRuns.createdBy)).where(eq(linkRuns.id, runId));
+  if (!x) throw notFound('Link run');
+  return toRunJson(x.r, x.creatorName);
+}
+
+/** The project of a run, for the access check (404 when there is no such run). */
+export async function runProject(runId: string): Promise<string> {
+  const [r] = await db.select({ projectId: linkRuns.projectId }).from(linkRuns).where(eq(linkRuns.id, runId));
+  if (!r) throw notFound('Link run');
+  return r.projectId;
+}
+
+export async function requireDoneRun(runId: string) {
+  const [r] = await db.select().from(linkRuns).where(eq(linkRuns.id, runId));
+  if (!r) throw notFound('Link run');
+  if (r.status !== 'done') throw new HttpError(409, 'run_not_done', `The link run is ${r.status}; its results exist once it is done.`);
+  return r;
+}
+
+export async function cancelRun(runId: string) {
+  const [r] = await db.select().from(linkRuns).where(eq(linkRuns.id, runId));
+  if (!r) throw notFound('Link run');
+  if (r.status !== 'queued' && r.status !== 'running') throw new HttpError(409, 'not_running', `The link run is already ${r.status}.`);
+  if (r.jobId) {
+    await requestCancel(r.jobId);
+    // A queued job is cancelled at once; a running one stops at its next progress report.
+    const res = await db.update(jobs).set({ status: 'cancelled', finishedAt: sql`NOW(3)` }).where(and(eq(jobs.id, r.jobId), eq(jobs.status, 'queued')));
+    if (res[0].affectedRows) {
+      await db.update(linkRuns).set({ status: 'cancelled', error: 'Cancelled before it started.', finishedAt: sql`NOW(3)` }).where(eq(linkRuns.id, runId));
+    }
+  }
+}
+
+/** Links common to two runs, and those gained (in `b` only) and lost (in `a` only). */
+export async function compareRuns(runA: string, runB: string) {
+  const [a, b] = [await requireDoneRun(runA), await requireDoneRun(runB)];
+  if (a.projectId !== b.projectId) throw notFound('Link run');
+  const count = async (q: ReturnType<typeof sql>) => {
+    const [[r]] = (await db.execute(q)) as unknown as [[{ n: number }]];
+    return Number(r.n);
+  };
+  const key = (x: string, y: string) => sql.raw(`${x}.catalog_a = ${y}.catalog_a AND ${x}.row_a = ${y}.row_a AND ${x}.catalog_b = ${y}.catalog_b AND ${x}.row_b = ${y}.row_b`);
+  const common = await count(sql`SELECT COUNT(*) AS n FROM links x JOIN links y ON ${key('x', 'y')} WHERE x.run_id = ${runA} AND y.run_id = ${runB}`);
+  const sample = async (from: string, other: string) => {
+    const [rows] = (await db.execute(sql`SELECT x.catalog_a AS catalogA, x.row_a AS rowA, x.catalog_b AS catalogB, x.row_b AS rowB, x.sep_arcsec AS sepArcsec, x.dv_kms AS dvKms
+      FROM links x LEFT JOIN links y ON y.run_id = ${other} AND ${key('x', 'y')}
+      WHERE x.run_id = ${from} AND y.id IS NULL ORDER BY x.id LIMIT 20`)) as unknown as [Record<string, unknown>[]];
+    return rows;
+  };
+  const sa = (a.summary ?? {}) as { links?: number; complexes?: number };
+  const sb = (b.summary ?? {}) as { links?: number; complexes?: number };
+  return {
+    comparison: {
+      a: { id: a.id, links: sa.links ?? 0, complexes: sa.complexes ?? 0 },
+      b: { id: b.id, links: sb.links ?? 0, complexes: sb.complexes ?? 0 },
+      common,
+      gained: (sb.links ?? 0) - common,
+      lost: (sa.links ?? 0) - common,
+      gainedSample: await sample(runB, runA),
+      lostSample: await sample(runA, runB),
+    },
+  };
+}

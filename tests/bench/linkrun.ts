@@ -1,0 +1,116 @@
+/**
+ * Link-run benchmark: two random Galactic-plane catalogs of N sources (|b| < 5°) are ingested
+ * through the services, then (1) a run at 60″ and 5 km/s with five chance repeats is executed and
+ * stored by the worker's code, (2) complexes pages are fetched with every sort (p95), and (3) a
+ * run with about a million links is exported as CSV (rows/s, peak RSS). Prints one JSON line.
+ * Run: `npm run bench:linkrun -- --rows 200000`.
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { closeDb } from '@/db/client';
+import { createCatalog } from '@/lib/services/catalogs';
+import { ingestCatalog } from '@/lib/services/catalog-ingest';
+import { complexesPage, complexesQuerySchema } from '@/lib/services/complexes';
+import { executeLinkRun } from '@/lib/services/link-run-exec';
+import { linkRunSchema, startLinkRun } from '@/lib/services/link-runs';
+import { createProject } from '@/lib/services/projects';
+import { runCsv } from '@/lib/services/run-exports';
+import { createUser } from '@/lib/services/users';
+
+const arg = (name: string, dflt: number) => {
+  const i = process.argv.indexOf(`--${name}`);
+  return i > 0 ? Number(process.argv[i + 1]) : dflt;
+};
+
+let peakRss = 0;
+const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
+
+function writeCatalog(file: string, n: number, seed: number) {
+  let s = seed;
+  const rnd = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const lines = ['GLON,GLAT,VLSR,NAME'];
+  for (let i = 0; i < n; i++) lines.push(`${(rnd() * 360).toFixed(5)},${(rnd() * 10 - 5).toFixed(5)},${(rnd() * 250 - 100).toFixed(2)},S${i}`);
+  fs.writeFileSync(file, lines.join('\n') + '\n');
+}
+
+async function ingest(projectId: string, userId: string, file: string, name: string) {
+  const form = new FormData();
+  form.set('file', await fs.openAsBlob(file), path.basename(file));
+  form.set('name', name);
+  form.set('kind', 'co');
+  const c = await createCatalog(new Request('http://bench.local/', { method: 'POST', body: form }), projectId, userId);
+  await ingestCatalog(c.id, async () => undefined);
+  return c.id;
+}
+
+async function timedRun(projectId: string, userId: string, body: unknown) {
+  const run = await startLinkRun(projectId, userId, linkRunSchema.parse(body));
+  const t0 = performance.now();
+  await executeLinkRun(run.id, async () => undefined, new AbortController().signal);
+  return { id: run.id, seconds: (performance.now() - t0) / 1000 };
+}
+
+async function main() {
+  const n = arg('rows', 200_000);
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lanewise-linkrun-'));
+  writeCatalog(path.join(dir, 'a.csv'), n, 1);
+  writeCatalog(path.join(dir, 'b.csv'), n, 2);
+  const user = await createUser({ email: `bench-${Date.now()}@lab.example`, name: 'Bench', password: 'bench-password-1' });
+  const project = await createProject(user.id, { name: 'Link-run benchmark' });
+  const a = await ingest(project.id, user.id, path.join(dir, 'a.csv'), 'A');
+  const b = await ingest(project.id, user.id, path.join(dir, 'b.csv'), 'B');
+
+  const main = await timedRun(project.id, user.id, { catalogIds: [a, b], radius: { mode: 'fixed', arcsec: 60 }, velocity: { mode: 'fixed', kms: 5 }, linkMode: 'all', chanceTrials: 5 });
+
+  // A run dense enough for ~100 000 complexes and ~1 000 000 links (radius chosen from the density).
+  const density = n / (360 * 10 * 3600 * 3600); // per arcsec²
+  const wide = await timedRun(project.id, user.id, {
+    catalogIds: [a, b],
+    radius: { mode: 'fixed', arcsec: Math.sqrt(1_000_000 / (n * density * Math.PI)) },
+    velocity: { mode: 'ignore' },
+    linkMode: 'all',
+    chanceTrials: 0,
+    complexCap: 100_000,
+  });
+
+  const times: number[] = [];
+  for (const sort of ['id', 'size', 'l', 'b', 'v', 'maxSepArcsec', 'maxDvKms', 'reliability', 'review']) {
+    for (const dir of ['asc', 'desc']) {
+      for (const page of [1, 2, 50]) {
+        const s = performance.now();
+        await complexesPage(wide.id, complexesQuerySchema.parse({ sort, dir, page, pageSize: 50 }));
+        times.push(performance.now() - s);
+      }
+    }
+  }
+  times.sort((x, y) => x - y);
+  const first = await complexesPage(wide.id, complexesQuerySchema.parse({}));
+
+  const rssBefore = process.memoryUsage().rss;
+  peakRss = rssBefore;
+  const t0 = performance.now();
+  let rows = -1;
+  for await (const piece of runCsv(wide.id, 'links')) for (let i = 0; i < piece.length; i++) if (piece.charCodeAt(i) === 10) rows++;
+  const exportSeconds = (performance.now() - t0) / 1000;
+  clearInterval(sampler);
+  console.log(
+    JSON.stringify({
+      sources: n,
+      run60arcsec: { seconds: +main.seconds.toFixed(2), chanceRepeats: 5 },
+      wideRun: { seconds: +wide.seconds.toFixed(2), complexes: first.total },
+      complexesPageP95Ms: +times[Math.floor(0.95 * (times.length - 1))].toFixed(1),
+      exportLinks: rows,
+      exportRowsPerSecond: Math.round(rows / exportSeconds),
+      exportRssGrowthMb: Math.round((peakRss - rssBefore) / 1e6),
+    }),
+  );
+  fs.rmSync(dir, { recursive: true, force: true });
+  await closeDb();
+}
+
+main().catch(async (e) => {
+  console.error(e);
+  await closeDb();
+  process.exit(1);
+});

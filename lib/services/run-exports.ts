@@ -27,18 +27,6 @@ async function* chunks(query: string, runId: string): AsyncGenerator<RowDataPack
 
 const SOURCE_COLUMNS = ['name', 'l', 'b', 'v'] as const;
 
-/** Canonical columns (name, l, b, v) of the given rows of a catalog, by row number. */
-async function sourceColumns(catalogId: string, rows: number[]) {
-  const out = new Map<number, unknown[]>();
-  if (!rows.length) return out;
-  const [found] = await pool().query<RowDataPacket[]>(
-    `SELECT \`row\`, name, l, b, v FROM \`${rowsTableName(catalogId)}\` WHERE \`row\` IN (?)`,
-    [rows],
-  );
-  for (const r of found) out.set(Number(r.row), [r.name, r.l, r.b, r.v]);
-  return out;
-}
-
 function linksTable(runId: string): Table {
   const fields: VotableField[] = [
     { name: 'catalog_a', datatype: 'char', arraysize: '*', ucd: 'meta.id' },
@@ -54,24 +42,19 @@ function linksTable(runId: string): Table {
     ...SOURCE_COLUMNS.map((c) => ({ name: `b_${c}`, datatype: c === 'name' ? 'char' : 'double', arraysize: c === 'name' ? '*' : undefined }) as VotableField),
   ];
   async function* rows() {
-    for await (const chunk of chunks(
-      'SELECT id, catalog_a, row_a, catalog_b, row_b, sep_arcsec, dv_kms, complex_id, reliability, radius_arcsec FROM links WHERE run_id = ? AND id > ? ORDER BY id LIMIT ?',
-      runId,
-    )) {
-      const need = new Map<string, number[]>();
-      for (const r of chunk) {
-        (need.get(r.catalog_a) ?? need.set(r.catalog_a, []).get(r.catalog_a)!).push(Number(r.row_a));
-        (need.get(r.catalog_b) ?? need.set(r.catalog_b, []).get(r.catalog_b)!).push(Number(r.row_b));
-      }
-      const cols = new Map<string, Map<number, unknown[]>>();
-      for (const [cat, rs] of need) cols.set(cat, await sourceColumns(cat, rs));
-      const blank = SOURCE_COLUMNS.map(() => null);
-      for (const r of chunk) {
-        yield [
-          r.catalog_a, r.row_a, r.catalog_b, r.row_b, r.sep_arcsec, r.dv_kms, r.complex_id, r.reliability, r.radius_arcsec,
-          ...(cols.get(r.catalog_a)?.get(Number(r.row_a)) ?? blank),
-          ...(cols.get(r.catalog_b)?.get(Number(r.row_b)) ?? blank),
-        ];
+    const [pairs] = await pool().query<RowDataPacket[]>('SELECT DISTINCT catalog_a, catalog_b FROM links WHERE run_id = ?', [runId]);
+    for (const pair of pairs) {
+      // One query per chunk joins both catalogs' rows on their primary keys.
+      const query = `SELECT l.id, l.catalog_a, l.row_a, l.catalog_b, l.row_b, l.sep_arcsec, l.dv_kms, l.complex_id, l.reliability, l.radius_arcsec,
+          a.name, a.l, a.b, a.v, b.name, b.l, b.b, b.v
+        FROM links l JOIN \`${rowsTableName(pair.catalog_a)}\` a ON a.\`row\` = l.row_a JOIN \`${rowsTableName(pair.catalog_b)}\` b ON b.\`row\` = l.row_b
+        WHERE l.run_id = ? AND l.catalog_a = ? AND l.catalog_b = ? AND l.id > ? ORDER BY l.id LIMIT ?`;
+      let after = -1;
+      for (;;) {
+        const [chunk] = await pool().query<RowDataPacket[]>({ sql: query, values: [runId, pair.catalog_a, pair.catalog_b, after, CHUNK], rowsAsArray: true });
+        if (!chunk.length) break;
+        for (const r of chunk as unknown as unknown[][]) yield r.slice(1);
+        after = Number((chunk[chunk.length - 1] as unknown as unknown[])[0]);
       }
     }
   }

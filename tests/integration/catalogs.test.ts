@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
+import mysql from 'mysql2/promise';
 import { newUser, type Client } from '../helpers/client';
 import { planeCsv, upload, waitForCatalog } from '../helpers/catalogs';
 import { makeTeam, type Team } from '../helpers/team';
@@ -195,4 +196,37 @@ describe('catalog endpoints by role', () => {
     expect((await t.editor.delete(`/api/catalogs/${catalogId}`)).status).toBe(204);
     expect((await t.editor.get(`/api/catalogs/${catalogId}`)).status).toBe(404);
   });
+});
+
+describe('a worker killed in the middle of an ingest', () => {
+  it('leaves no partial catalog; the ingest runs again and stores every row once', async () => {
+    const { client } = await newUser('cat-crash');
+    const p = await client.json<{ project: { id: string } }>('POST', '/api/projects', { name: 'Crash ingest' });
+    const up = await upload(client, p.body.project.id, { content: planeCsv(110_000), name: 'Big plane' });
+    expect(up.status).toBe(202);
+    const id = up.body.catalog.id;
+    const conn = await mysql.createConnection(process.env.DATABASE_URL!);
+    try {
+      let pid = 0;
+      for (let i = 0; i < 600 && !pid; i++) {
+        const [[job]] = (await conn.query("SELECT j.locked_by, j.progress FROM jobs j JOIN catalogs c ON c.job_id = j.id WHERE c.id = ? AND j.status = 'running'", [id])) as unknown as [[{ locked_by: string; progress: number }?]];
+        const [[cat]] = (await conn.query('SELECT progress FROM catalogs WHERE id = ?', [id])) as unknown as [[{ progress: number }]];
+        if (job && cat.progress > 0.05) pid = Number(job.locked_by.split(':').pop());
+        else await new Promise((res) => setTimeout(res, 20));
+      }
+      if (!pid) throw new Error('never caught the ingest part-way');
+      process.kill(pid, 'SIGKILL');
+      const mid = await client.json<{ catalog: { status: string } }>('GET', `/api/catalogs/${id}`);
+      expect(mid.body.catalog.status).toBe('ingesting');
+      expect((await client.get(`/api/catalogs/${id}/rows`)).status).toBe(409);
+      const done = await waitForCatalog(client, id, 120_000);
+      expect(done.status).toBe('ready');
+      expect(done.rowCount).toBe(110_000);
+      const all = await client.json<{ total: number; rows: { row: number }[] }>('GET', `/api/catalogs/${id}/rows?sort=row&dir=desc&pageSize=1`);
+      expect(all.body.total).toBe(110_000);
+      expect(all.body.rows[0].row).toBe(110_000);
+    } finally {
+      await conn.end();
+    }
+  }, 180_000);
 });

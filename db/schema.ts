@@ -301,3 +301,43 @@ export const complexMembers = mysqlTable(
     index('members_name').on(t.runId, t.name),
   ],
 );
+
+/** An ordering analysis of a link run: its parameters and, once done, its result. */
+export const analyses = mysqlTable(
+  'analyses',
+  {
+    id: id().primaryKey(),
+    projectId: id('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    runId: id('run_id')
+      .notNull()
+      .references(() => linkRuns.id, { onDelete: 'cascade' }),
+    status: mysqlEnum('status', RUN_STATUSES).notNull().default('queued'),
+    progress: double('progress').notNull().default(0),
+    params: json('params').$type<Record<string, unknown>>().notNull(),
+    result: json('result').$type<Record<string, unknown>>(),
+    error: text('error'),
+    jobId: bigint('job_id', { mode: 'number', unsigned: true }),
+    createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    finishedAt: timestamp('finished_at', { fsp: 3 }),
+  },
+  (t) => [index('analyses_project').on(t.projectId, t.createdAt)],
+);
+
+/** An editor's distance for a complex, used by later analyses instead of the kinematic one. */
+export const distanceOverrides = mysqlTable(
+  'distance_overrides',
+  {
+    runId: id('run_id')
+      .notNull()
+      .references(() => linkRuns.id, { onDelete: 'cascade' }),
+    complexId: int('complex_id').notNull(),
+    distKpc: double('dist_kpc').notNull(),
+    note: text('note'),
+    setBy: id('set_by').references(() => users.id, { onDelete: 'set null' }),
+    setAt: timestamp('set_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [primaryKey({ columns: [t.runId, t.complexId] })],
+);

@@ -1,11 +1,166 @@
-import { closeDb } from '@/db/client';
+import fs from 'node:fs';
+import path from 'node:path';
+import { and, eq } from 'drizzle-orm';
+import { closeDb, db } from '@/db/client';
+import { analyses, catalogs, linkRuns } from '@/db/schema';
+import { env } from '@/lib/env';
+import { runWorker } from '@/lib/jobs/worker';
+import { analysisSchema, startAnalysis } from '@/lib/services/analyses';
+import { createCatalog } from '@/lib/services/catalogs';
+import { complexesPage, complexesQuerySchema, reviewComplex } from '@/lib/services/complexes';
+import { linkRunSchema, startLinkRun } from '@/lib/services/link-runs';
+import { getUserByEmail } from '@/lib/services/users';
 import { ensureDemoAccounts } from '@/lib/services/seed-accounts';
+import { DEFAULT_MODEL, generateGalaxy, writeDemoFiles } from './generator';
 
-/** Fills the local database with the demo team and project. Idempotent. */
+/** The four demo files with the mapping a researcher would confirm on the upload screen. */
+const DEMO_CATALOGS = [
+  {
+    file: 'hrg-co-clouds.txt',
+    name: 'HRG CO clouds (J=1–0)',
+    kind: 'co',
+    mapping: {
+      position: { system: 'galactic', lon: { column: 'l_deg', unit: 'deg' }, lat: { column: 'b_deg', unit: 'deg' } },
+      velocity: { column: 'v_lsr_kms', unit: 'km/s', frame: 'lsr', convention: 'radio' },
+      lineWidth: { column: 'sigma_v', unit: 'km/s', kind: 'sigma' },
+      size: { column: 'radius_arcsec', unit: 'arcsec', kind: 'radius' },
+      name: { column: 'cloud_id' },
+    },
+  },
+  {
+    file: 'hrg-hi-clouds.csv',
+    name: 'HRG HI clouds (21 cm)',
+    kind: 'hi',
+    mapping: {
+      position: { system: 'galactic', lon: { column: 'GLON', unit: 'deg' }, lat: { column: 'GLAT', unit: 'deg' } },
+      velocity: { column: 'VLSR', unit: 'km/s', frame: 'lsr', convention: 'radio' },
+      lineWidth: { column: 'FWHM_KMS', unit: 'km/s', kind: 'fwhm' },
+      size: { column: 'SIZE_ARCMIN', unit: 'arcmin', kind: 'diameter' },
+      name: { column: 'NAME' },
+    },
+  },
+  {
+    file: 'hrg-hii-regions.csv',
+    name: 'HRG HII regions (recombination lines)',
+    kind: 'hii',
+    mapping: {
+      position: { system: 'equatorial', lon: { column: 'RA_J2000', unit: 'sexagesimal' }, lat: { column: 'DEC_J2000', unit: 'sexagesimal' } },
+      velocity: { column: 'V_HEL_OPT', unit: 'km/s', frame: 'heliocentric', convention: 'optical' },
+      velocityError: { column: 'E_V_HEL', unit: 'km/s' },
+      lineWidth: { column: 'RRL_FWHM', unit: 'km/s', kind: 'fwhm' },
+      size: { column: 'DIAM_ARCMIN', unit: 'arcmin', kind: 'diameter' },
+      name: { column: 'REGION' },
+    },
+  },
+  {
+    file: 'hrg-ob-associations.vot',
+    name: 'HRG OB associations',
+    kind: 'ob',
+    mapping: {
+      position: { system: 'equatorial', lon: { column: 'ra', unit: 'deg' }, lat: { column: 'dec', unit: 'deg' } },
+      velocity: { column: 'vlsr', unit: 'km/s', frame: 'lsr', convention: 'radio' },
+      velocityError: { column: 'vlsr_err', unit: 'km/s' },
+      distance: { column: 'dist', unit: 'kpc' },
+      distanceError: { column: 'dist_err', unit: 'kpc' },
+      size: { column: 'diam', unit: 'arcmin', kind: 'diameter' },
+      name: { column: 'assoc' },
+    },
+  },
+] as const;
+
+/** Runs every queued job to its end in this process, through the worker's own code. */
+const drainJobs = () => runWorker({ once: true });
+
+async function seedCatalogs(projectId: string, editorId: string) {
+  const dir = path.resolve(env().LANEWISE_DATA_DIR, 'demo-source');
+  if (!fs.existsSync(path.join(dir, 'truth.json'))) {
+    const galaxy = generateGalaxy({ seed: 7, complexes: 300, interlopers: 200 });
+    fs.mkdirSync(dir, { recursive: true });
+    await writeDemoFiles(galaxy, dir);
+  }
+  for (const c of DEMO_CATALOGS) {
+    const [existing] = await db.select({ id: catalogs.id, status: catalogs.status }).from(catalogs).where(and(eq(catalogs.projectId, projectId), eq(catalogs.name, c.name)));
+    if (existing?.status === 'ready') continue;
+    const form = new FormData();
+    form.set('file', await fs.openAsBlob(path.join(dir, c.file)), c.file);
+    form.set('name', c.name);
+    form.set('kind', c.kind);
+    form.set('mapping', JSON.stringify(c.mapping));
+    await createCatalog(new Request('http://seed.local/upload', { method: 'POST', body: form }), projectId, editorId);
+  }
+  await drainJobs();
+}
+
+async function seedRun(projectId: string, editorId: string) {
+  const [done] = await db.select({ id: linkRuns.id }).from(linkRuns).where(and(eq(linkRuns.projectId, projectId), eq(linkRuns.status, 'done')));
+  if (done) return done.id;
+  const cats = await db.select({ id: catalogs.id, name: catalogs.name }).from(catalogs).where(and(eq(catalogs.projectId, projectId), eq(catalogs.status, 'ready')));
+  const ordered = DEMO_CATALOGS.map((d) => cats.find((c) => c.name === d.name)!.id);
+  const run = await startLinkRun(
+    projectId,
+    editorId,
+    linkRunSchema.parse({
+      name: 'Gas and young stars, 4′ and 6 km/s',
+      catalogIds: ordered,
+      radius: { mode: 'fixed', arcsec: 240 },
+      velocity: { mode: 'fixed', kms: 6 },
+      linkMode: 'all',
+      chanceTrials: 5,
+    }),
+  );
+  await drainJobs();
+  // A few reviews, as the team would leave them.
+  const page = await complexesPage(run.id, complexesQuerySchema.parse({ sort: 'size', dir: 'desc', pageSize: 6 }));
+  const verdicts = [
+    ['accepted', 'CO, HII and OB members agree in velocity; a clear star-forming complex.'],
+    ['accepted', 'Compact; the HII region sits on the CO peak.'],
+    ['accepted', ''],
+    ['doubtful', 'Velocity spread near the window edge; check the HI line profile.'],
+    ['rejected', 'Chance alignment along a crowded sight line.'],
+  ] as const;
+  for (let i = 0; i < Math.min(verdicts.length, page.complexes.length); i++) {
+    await reviewComplex(run.id, Number(page.complexes[i].id), editorId, { review: verdicts[i][0], note: verdicts[i][1] });
+  }
+  return run.id;
+}
+
+async function seedAnalysis(projectId: string, editorId: string, runId: string) {
+  const [existing] = await db.select({ id: analyses.id }).from(analyses).where(and(eq(analyses.projectId, projectId), eq(analyses.status, 'done')));
+  if (existing) return;
+  await startAnalysis(
+    projectId,
+    editorId,
+    analysisSchema.parse({
+      runId,
+      curve: { name: DEFAULT_MODEL.rotationCurve },
+      arms: {
+        custom: DEFAULT_MODEL.arms.map((a) => ({ name: a.name, Rref: a.RrefKpc, betaRefDeg: a.betaRefDeg, pitchDeg: a.pitchDeg, betaMinDeg: a.betaMinDeg, betaMaxDeg: a.betaMaxDeg })),
+      },
+      patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
+      resamples: 2000,
+      seed: 1,
+    }),
+  );
+  await drainJobs();
+}
+
+/**
+ * Fills the local database with the demo team and the "Harbor Ridge Radio Group" project:
+ * four invented catalogs ingested through the real ingest job, a finished link run with a few
+ * reviewed complexes, and an ordering analysis. Each step is skipped when already done.
+ */
 async function main() {
   const projectId = await ensureDemoAccounts();
+  const editor = await getUserByEmail('editor@harborridge.example');
+  if (!editor) throw new Error('demo editor missing');
+  if (process.env.LANEWISE_SEED_ACCOUNTS_ONLY !== '1') {
+    await seedCatalogs(projectId, editor.id);
+    const runId = await seedRun(projectId, editor.id);
+    await seedAnalysis(projectId, editor.id, runId);
+  }
   console.log(`[seed] demo project ${projectId} ready`);
   await closeDb();
+  process.exit(0);
 }
 
 main().catch(async (e) => {

@@ -1,3 +1,4 @@
 // Every job kind registers its handler on import; the worker imports this module once.
 import './ingest';
 import './link-run';
+import './analysis';

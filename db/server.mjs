@@ -130,7 +130,9 @@ export async function startDb(profile = 'dev') {
       '--skip-name-resolve',
       '--character-set-server=utf8mb4',
       '--collation-server=utf8mb4_unicode_ci',
-      '--innodb-buffer-pool-size=512M',
+      '--innodb-buffer-pool-size=1G',
+      // Index builds after a bulk load sort in memory: a larger buffer makes them several times faster.
+      '--innodb-sort-buffer-size=64M',
       '--innodb-log-file-size=256M',
       '--innodb-flush-log-at-trx-commit=2',
       '--max-allowed-packet=256M',

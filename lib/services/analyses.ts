@@ -34,7 +34,7 @@ export const analysisSchema = z.object({
     z.object({ custom: z.array(customArmSchema).min(1, 'Give at least one arm.').max(12) }),
   ]),
   patternSpeed: z.number().min(0).max(200),
-  resamples: z.number().int().min(200).max(20_000).default(2000),
+  resamples: z.number().int().min(2000, 'Use at least 2 000 resamples (SCIENCE.md §6).').max(20_000).default(2000),
   seed: z.number().int().default(1),
   armWidthKpc: z.number().positive().max(5).default(1),
   sigmaStreamKms: z.number().min(0).max(50).default(7),

@@ -1,0 +1,70 @@
+/**
+ * Builds ordering-analysis input from a generated demo galaxy: one OrderingComplex per generator
+ * complex, with the observed l, b, v, velocity error and independent distance of each member as
+ * the catalogs hold them, and settings taken from the galaxy's truth (curve, arms, pattern speed).
+ */
+import { makeRotationCurve, type RotationCurveName } from '@/lib/astro/rotation-curves';
+import type { OrderingComplex, OrderingSettings, TracerKind } from '@/lib/ordering';
+import { TRACERS, type DemoGalaxy } from '@/seed/generator';
+
+const KIND: Record<(typeof TRACERS)[number], TracerKind> = {
+  HI: 'hi',
+  CO: 'co',
+  HII: 'hii',
+  OB: 'ob',
+};
+
+/** Member row (catalog and row) of each complex member, in the order they appear in the input. */
+export type MemberRef = { tracer: (typeof TRACERS)[number]; row: number };
+
+/** The galaxy's complexes as analysis input, and where each member came from. */
+export function complexesFromGalaxy(galaxy: DemoGalaxy): {
+  complexes: OrderingComplex[];
+  refs: MemberRef[][];
+} {
+  const n = galaxy.complexes.count;
+  const complexes: OrderingComplex[] = Array.from({ length: n }, (_, c) => ({
+    id: `cx-${c}`,
+    members: [],
+  }));
+  const refs: MemberRef[][] = Array.from({ length: n }, () => []);
+  for (const t of TRACERS) {
+    const cat = galaxy.catalogs[t];
+    for (let i = 0; i < cat.count; i++) {
+      const c = cat.complexId[i];
+      if (c < 0) continue;
+      complexes[c].members.push({
+        kind: KIND[t],
+        lDeg: cat.lDeg[i],
+        bDeg: cat.bDeg[i],
+        vLsrKms: cat.vLsrKms[i],
+        vErrKms: cat.vErrKms[i],
+        distKpc: cat.indepDistKpc[i],
+        distErrKpc: cat.indepDistErrKpc[i],
+      });
+      refs[c].push({ tracer: t, row: i });
+    }
+  }
+  return { complexes, refs };
+}
+
+/** Settings that use the galaxy's own curve, arms and pattern speed (the truth), and SCIENCE.md defaults. */
+export function settingsFromGalaxy(
+  galaxy: DemoGalaxy,
+  overrides: Partial<OrderingSettings> = {},
+): OrderingSettings {
+  const { truth } = galaxy;
+  return {
+    curve: makeRotationCurve(truth.rotationCurve.name as RotationCurveName),
+    arms: truth.arms,
+    armWidthKpc: 1.0,
+    patternSpeedKmsKpc: truth.patternSpeedKmsKpc,
+    sigmaStreamKms: 7,
+    scaleHeightKpc: 0.06,
+    velocityFrom: 'gas',
+    resamples: 2000,
+    seed: 7,
+    mcDraws: 200,
+    ...overrides,
+  };
+}

@@ -17,6 +17,8 @@ const envSchema = z.object({
   /** `local` shows the demo sign-in and the caught mail; `production` hides both. */
   LANEWISE_MODE: z.enum(['local', 'production']).default('local'),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(512),
+  /** Runs that take longer than this e-mail whoever started them when they end. */
+  RUN_NOTICE_AFTER_SECONDS: z.coerce.number().min(0).default(60),
   SIGN_IN_LIMIT: z.coerce.number().int().positive().default(10),
   SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().positive().default(900),
 });

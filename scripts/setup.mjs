@@ -70,6 +70,8 @@ export function profileSettings(profile) {
     // Tests check the 413 of the upload limit without sending half a gigabyte.
     // Tests kill a worker on purpose; its job is picked up again after this many seconds.
     WORKER_STALE_SECONDS: isTest ? '6' : (process.env.WORKER_STALE_SECONDS ?? '30'),
+    // Tests see the end-of-run e-mail without waiting a minute for it.
+    RUN_NOTICE_AFTER_SECONDS: isTest ? '0' : (process.env.RUN_NOTICE_AFTER_SECONDS ?? '60'),
     UPLOAD_LIMIT_MB: isTest ? '5' : (process.env.UPLOAD_LIMIT_MB ?? '512'),
     NEXT_DIST_DIR: isTest ? (slot ? `.next-test-${slot}` : '.next-test') : '.next',
     NEXT_TELEMETRY_DISABLED: '1',

@@ -285,9 +285,9 @@ export async function failLinkRun(runId: string, reason: string, cancelled: bool
   if (run?.startedAt) await notifyIfLong(runId, run.startedAt.getTime(), cancelled ? 'was cancelled' : 'failed', reason);
 }
 
-/** E-mails whoever started a run that took over a minute, unless they opted out. */
+/** E-mails whoever started a run that took over a minute (RUN_NOTICE_AFTER_SECONDS), unless they opted out. */
 async function notifyIfLong(runId: string, startedMs: number, status: string, summary: string) {
-  if (Date.now() - startedMs < 60_000) return;
+  if (Date.now() - startedMs < env().RUN_NOTICE_AFTER_SECONDS * 1000) return;
   const [x] = await db
     .select({ email: users.email, notify: users.notifyRunEmails, projectName: projects.name, projectId: projects.id })
     .from(linkRuns)

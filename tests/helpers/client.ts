@@ -84,19 +84,29 @@ export async function newUser(tag: string, name = 'Test Researcher') {
 type CaughtMail = { to: string[]; subject: string; text: string; receivedAt: string };
 
 /** Waits for the local mail catcher to hold a message to `to` matching `subject`. */
-export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_000): Promise<CaughtMail> {
+export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_000, contains = ''): Promise<CaughtMail> {
   const dir = process.env.MAIL_CATCHER_DIR ?? '.data/test/mail';
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     if (fs.existsSync(dir)) {
       for (const f of fs.readdirSync(dir).filter((n) => n.endsWith('.json'))) {
         const m = JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')) as CaughtMail;
-        if (m.to.includes(to) && subject.test(m.subject)) return m;
+        if (m.to.includes(to) && subject.test(m.subject) && m.text.includes(contains)) return m;
       }
     }
     await new Promise((r) => setTimeout(r, 150));
   }
   throw new Error(`no mail to ${to} matching ${subject} within ${timeoutMs} ms`);
+}
+
+/** How many caught messages went to `to` so far. */
+export function countMail(to: string): number {
+  const dir = process.env.MAIL_CATCHER_DIR ?? '.data/test/mail';
+  if (!fs.existsSync(dir)) return 0;
+  return fs
+    .readdirSync(dir)
+    .filter((n) => n.endsWith('.json'))
+    .filter((f) => (JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')) as CaughtMail).to.includes(to)).length;
 }
 
 export const linkIn = (text: string) => {

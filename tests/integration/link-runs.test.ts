@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import mysql from 'mysql2/promise';
-import type { Client } from '../helpers/client';
+import { countMail, waitForMail, type Client } from '../helpers/client';
 import { upload, waitForCatalog } from '../helpers/catalogs';
 import { makeTeam, type Team } from '../helpers/team';
 
@@ -138,6 +138,23 @@ describe('link runs through the API', () => {
     const methods = await t.viewer.json<{ parameters: { linkMode: string }; references: string[] }>('GET', `/api/link-runs/${start.body.run.id}/methods.json`);
     expect(methods.body.parameters.linkMode).toBe('mutual');
     expect(methods.body.references.length).toBeGreaterThan(0);
+  });
+
+  it('e-mails whoever started a run when it ends, unless they opted out', async () => {
+    const body = { catalogIds: [catA, catB], radius: { mode: 'fixed', arcsec: 20 }, velocity: { mode: 'ignore' }, linkMode: 'all', chanceTrials: 0 };
+    const start = await t.editor.json<{ run: { id: string } }>('POST', `/api/projects/${t.projectId}/link-runs`, body);
+    await waitForRun(t.editor, start.body.run.id);
+    const me = await t.editor.json<{ user: { email: string } }>('GET', '/api/account');
+    const mail = await waitForMail(me.body.user.email, /Link run finished/, 10_000, start.body.run.id);
+    expect(mail.text).toContain(`/link-runs/${start.body.run.id}`);
+
+    expect((await t.editor.patch('/api/account', { notifyRunEmails: false })).status).toBe(200);
+    const before = countMail(me.body.user.email);
+    const second = await t.editor.json<{ run: { id: string } }>('POST', `/api/projects/${t.projectId}/link-runs`, body);
+    await waitForRun(t.editor, second.body.run.id);
+    await new Promise((res) => setTimeout(res, 1500));
+    expect(countMail(me.body.user.email)).toBe(before);
+    await t.editor.patch('/api/account', { notifyRunEmails: true });
   });
 
   it('refuses catalogs that are not ready or not in the project, naming which', async () => {

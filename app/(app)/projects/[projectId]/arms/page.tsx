@@ -1,13 +1,30 @@
-import { EmptyState, PageHeader } from '@/components/ui/panel';
+import { OrderingWorkspace } from '@/components/ordering/ordering-workspace';
+import { PageHeader } from '@/components/ui/panel';
+import { pageProjectRole } from '@/lib/auth/page-user';
+import { roleAtLeast } from '@/lib/auth/roles';
 
-export default function ArmsPage() {
+export default async function ArmsPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<{ analysis?: string | string[] }>;
+}) {
+  const { projectId } = await params;
+  const { analysis } = await searchParams;
+  const { role } = await pageProjectRole(projectId);
   return (
     <>
-      <PageHeader title="Arms & ordering" lead="Kinematic distances, spiral-arm models and the offsets of gas and young stars across the arms." />
-      <EmptyState title="No ordering analysis yet">
-        An ordering analysis needs a finished link run. Meanwhile the Calculators page gives kinematic distances for any
-        list of positions and velocities.
-      </EmptyState>
+      <PageHeader
+        title="Arms & ordering"
+        lead="Place the complexes of a link run in the Galaxy with kinematic distances, measure where gas and young stars sit across the spiral arms, and test whether the gas lies upstream."
+      />
+      <OrderingWorkspace
+        projectId={projectId}
+        canEdit={roleAtLeast(role, 'editor')}
+        isOwner={role === 'owner'}
+        analysisId={typeof analysis === 'string' && analysis ? analysis : null}
+      />
     </>
   );
 }

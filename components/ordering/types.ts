@@ -1,0 +1,190 @@
+/**
+ * Shapes of the ordering-analysis JSON API as the Arms & ordering page reads them (the contract
+ * of `/api/projects/{id}/analyses`, `/api/analyses/{id}` and `/api/projects/{id}/arm-presets`).
+ * Distances and offsets in kpc, angles in degrees, velocities LSR km/s, times ISO 8601. Offsets
+ * are signed: positive ahead of the arm ridge in the sense of Galactic rotation.
+ */
+import type { ArmSpec } from '@/lib/astro/arms';
+import type { ToolCurveName } from '@/lib/services/tools';
+import type { TracerKind } from '@/lib/tracers';
+
+export type AnalysisStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
+
+/** A 95 % interval [lower, upper]. */
+export type Ci = [number, number];
+
+/** One arm as the API spells it in `arms.custom` (β in degrees, R_ref in kpc). */
+export interface CustomArmJson {
+  name: string;
+  Rref: number;
+  betaRefDeg: number;
+  pitchDeg: number;
+  betaMinDeg: number;
+  betaMaxDeg: number;
+}
+
+export type ArmsChoice = { preset: string } | { custom: CustomArmJson[] };
+
+export interface CurveChoice {
+  name: ToolCurveName;
+  R0?: number;
+  theta0?: number;
+}
+
+/** The project's ordering defaults as saved in `project.settings.ordering`. */
+export interface OrderingDefaults {
+  curve: CurveChoice;
+  arms: ArmsChoice;
+  patternSpeed: number;
+  armWidthKpc: number;
+  sigmaStreamKms: number;
+  scaleHeightKpc: number;
+  velocityFrom: 'gas' | 'all';
+}
+
+/** The body of `POST /api/projects/{id}/analyses`, also kept as the analysis's `params`. */
+export interface AnalysisParams extends Partial<Omit<OrderingDefaults, 'curve' | 'arms'>> {
+  runId: string;
+  curve: CurveChoice;
+  arms: ArmsChoice;
+  patternSpeed: number;
+  resamples: number;
+  seed: number;
+}
+
+export interface ClassSummary {
+  kind: TracerKind;
+  n: number;
+  medianOffsetKpc: number | null;
+  ci95: Ci | null;
+  meanOffsetKpc: number | null;
+  meanCi95: Ci | null;
+  medianAzimuthOffsetDeg: number | null;
+}
+
+export interface GasToStars {
+  n: number;
+  medianAcrossKpc: number | null;
+  ci95: Ci | null;
+  meanAcrossKpc: number | null;
+  medianAlongKpc: number | null;
+  pValue: number | null;
+}
+
+export interface DelaySummary {
+  n: number;
+  median: number | null;
+  ci95: Ci | null;
+}
+
+export interface PerArm {
+  arm: string;
+  n: number;
+  classes: { kind: TracerKind; n: number; medianOffsetKpc: number | null; ci95: Ci | null }[];
+  gasToStarsMedianKpc: number | null;
+}
+
+export interface RadialBin {
+  RminKpc: number;
+  RmaxKpc: number;
+  n: number;
+  medianAcrossKpc: number | null;
+  ci95: Ci | null;
+  insideCorotation: boolean;
+}
+
+export type DistanceChoice =
+  'near' | 'far' | 'tangent' | 'single' | 'independent' | 'override' | 'unresolved';
+
+export interface ResultComplex {
+  id: string;
+  lDeg: number;
+  bDeg: number;
+  vLsrKms: number | null;
+  distKpc: number | null;
+  distLoKpc: number | null;
+  distHiKpc: number | null;
+  choice: DistanceChoice;
+  reason: string;
+  flags: string[];
+  xKpc: number | null;
+  yKpc: number | null;
+  RKpc: number | null;
+  betaDeg: number | null;
+  arm: string | null;
+  perpOffsetKpc: number | null;
+  azimuthOffsetDeg: number | null;
+  gasToStarsAcrossKpc: number | null;
+  used: boolean;
+  excludedBecause: string | null;
+}
+
+export interface ResultSource {
+  complexId: string;
+  kind: TracerKind;
+  xKpc: number;
+  yKpc: number;
+  perpOffsetKpc: number | null;
+}
+
+export interface OrderingResult {
+  classes: ClassSummary[];
+  gasToStars: GasToStars;
+  delayMyr: DelaySummary;
+  ks: { d: number; pValue: number } | null;
+  perArm: PerArm[];
+  radialBins: RadialBin[];
+  corotationKpc: number | null;
+  exclusions: { complexes: number; used: number; reasons: Record<string, number> };
+  warnings: string[];
+  complexes: ResultComplex[];
+  sources: ResultSource[];
+  conventions: string;
+}
+
+export interface Person {
+  id: string;
+  name: string;
+}
+
+/** One row of `GET /api/projects/{id}/analyses`. */
+export interface AnalysisListItem {
+  id: string;
+  runId: string;
+  runName: string;
+  status: AnalysisStatus;
+  progress: number;
+  params: AnalysisParams;
+  createdAt: string;
+  createdBy: Person | string | null;
+  summary: {
+    gasToStarsMedianKpc: number | null;
+    pValue: number | null;
+    delayMedianMyr: number | null;
+  } | null;
+}
+
+/** `GET /api/analyses/{id}` → `analysis`. */
+export interface Analysis {
+  id: string;
+  runId: string;
+  status: AnalysisStatus;
+  progress: number;
+  params: AnalysisParams;
+  error: string | null;
+  createdAt: string;
+  createdBy: Person | string | null;
+  result: OrderingResult | null;
+}
+
+/** `GET /api/projects/{id}/arm-presets`. */
+export interface ArmPresets {
+  presets: { key: string; label: string; source: string; R0Kpc: number; arms: ArmSpec[] }[];
+  curves: {
+    name: ToolCurveName;
+    label: string;
+    source: string;
+    R0Kpc: number;
+    theta0Kms: number;
+  }[];
+}

@@ -11,6 +11,7 @@ import { ErrorNote, PageHeader, Panel } from '@/components/ui/panel';
 import { TracerBadge } from '@/components/ui/tracer-badge';
 import { TRACER_KINDS } from '@/lib/tracers';
 import { fmt, fmtCount } from './format';
+import { DistancePanel } from './distance-panel';
 import { ReviewPanel } from './review-panel';
 import { useRun } from './run-detail';
 import type { ComplexDetail as ComplexDetailJson, ComplexPage } from './types';
@@ -168,6 +169,9 @@ export function ComplexDetail({
       <div className="grid grid-cols-1 gap-6 2xl:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="2xl:sticky 2xl:top-6 2xl:order-last 2xl:self-start">
           <ReviewPanel key={c.id} runId={runId} complex={c} history={c.history} canEdit={canEdit} />
+          <div className="mt-6">
+            <DistancePanel key={`d${c.id}`} runId={runId} complexId={c.id} current={c.distanceOverride} canEdit={canEdit} />
+          </div>
         </div>
         <div className="space-y-6">
           <Panel title="Members">

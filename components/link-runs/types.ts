@@ -157,7 +157,8 @@ export interface HistoryEntry {
   at: string;
 }
 
-export type ComplexDetail = Complex & { members: Member[]; links: Link[]; history: HistoryEntry[] };
+export type DistanceOverride = { distKpc: number; note: string; by: string; at: string };
+export type ComplexDetail = Complex & { members: Member[]; links: Link[]; history: HistoryEntry[]; distanceOverride: DistanceOverride | null };
 
 export interface Comparison {
   a: { id: string; links: number; complexes: number };

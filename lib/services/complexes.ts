@@ -2,7 +2,7 @@ import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
-import { auditLog, catalogs, complexes, users } from '@/db/schema';
+import { auditLog, catalogs, complexes, distanceOverrides, users } from '@/db/schema';
 import { HttpError, notFound } from '@/lib/http/errors';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
@@ -152,11 +152,17 @@ export async function complexDetail(runId: string, complexId: number) {
     .leftJoin(users, eq(users.id, auditLog.userId))
     .where(and(eq(auditLog.action, 'complex.review'), eq(auditLog.subject, `${runId}:${complexId}`)))
     .orderBy(sql`${auditLog.at} DESC`);
+  const [override] = await db
+    .select({ distKpc: distanceOverrides.distKpc, note: distanceOverrides.note, setAt: distanceOverrides.setAt, name: users.name })
+    .from(distanceOverrides)
+    .leftJoin(users, eq(users.id, distanceOverrides.setBy))
+    .where(and(eq(distanceOverrides.runId, runId), eq(distanceOverrides.complexId, complexId)));
   return {
     complex: {
       ...complex,
       members,
       links: linkRows,
+      distanceOverride: override ? { distKpc: override.distKpc, note: override.note ?? '', by: override.name ?? '', at: override.setAt.toISOString() } : null,
       history: history.map((h) => ({
         action: h.action,
         review: (h.detail as { review?: string } | null)?.review ?? null,

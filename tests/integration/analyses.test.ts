@@ -92,6 +92,8 @@ describe('ordering analysis through the API', () => {
     expect((await t.viewer.request('PUT', `/api/link-runs/${runId}/complexes/0/distance`, { distKpc: 3, note: 'maser parallax' })).status).toBe(403);
     const ok = await t.editor.request('PUT', `/api/link-runs/${runId}/complexes/0/distance`, { distKpc: 3, note: 'maser parallax' });
     expect(ok.status).toBe(200);
+    const detail = await t.viewer.json<{ complex: { distanceOverride: { distKpc: number; note: string } | null } }>('GET', `/api/link-runs/${runId}/complexes/0`);
+    expect(detail.body.complex.distanceOverride).toMatchObject({ distKpc: 3, note: 'maser parallax' });
     const few = await t.editor.json<{ error: { message: string } }>('POST', `/api/projects/${t.projectId}/analyses`, { ...body(), resamples: 100 });
     expect(few.status).toBe(400);
     expect(few.body.error.message).toMatch(/resamples/);

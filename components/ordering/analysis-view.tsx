@@ -285,6 +285,12 @@ export function AnalysisView({
                 the ridge — ahead in the sense of rotation inside corotation, behind it outside —
                 where density-wave theory puts young stars relative to gas.
               </p>
+              <p className="text-xs text-ink-soft" data-testid="class-offset-caveat">
+                Read with care: each complex sits at its kinematic distance, whose errors (streaming
+                motions, near/far choice) move it across the arm by tens to hundreds of pc. Offsets
+                of whole classes from the ridge are only as good as those distances; the gas →
+                young-star offset within complexes above does not depend on them.
+              </p>
               <ClassTable result={result} />
             </div>
           </Panel>

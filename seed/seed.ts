@@ -9,6 +9,7 @@ import { analysisSchema, startAnalysis } from '@/lib/services/analyses';
 import { createCatalog } from '@/lib/services/catalogs';
 import { complexesPage, complexesQuerySchema, reviewComplex } from '@/lib/services/complexes';
 import { linkRunSchema, startLinkRun } from '@/lib/services/link-runs';
+import { updateProject } from '@/lib/services/projects';
 import { getUserByEmail } from '@/lib/services/users';
 import { ensureDemoAccounts } from '@/lib/services/seed-accounts';
 import { DEMO_CATALOGS } from './demo-catalogs';
@@ -70,22 +71,27 @@ async function seedRun(projectId: string, editorId: string) {
   return run.id;
 }
 
-async function seedAnalysis(projectId: string, editorId: string, runId: string) {
+/** The demo galaxy's own curve, arms and pattern speed, as the owner would save them. */
+const demoOrdering = () => ({
+  curve: { name: DEFAULT_MODEL.rotationCurve },
+  arms: {
+    custom: DEFAULT_MODEL.arms.map((a) => ({ name: a.name, Rref: a.RrefKpc, betaRefDeg: a.betaRefDeg, pitchDeg: a.pitchDeg, betaMinDeg: a.betaMinDeg, betaMaxDeg: a.betaMaxDeg })),
+  },
+  patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
+  armWidthKpc: 1,
+  sigmaStreamKms: 7,
+  scaleHeightKpc: 0.06,
+  velocityFrom: 'gas' as const,
+});
+
+async function seedAnalysis(projectId: string, editorId: string, ownerId: string, runId: string) {
+  await updateProject(projectId, ownerId, { settings: { ordering: demoOrdering() } }, 'owner');
   const [existing] = await db.select({ id: analyses.id }).from(analyses).where(and(eq(analyses.projectId, projectId), eq(analyses.status, 'done')));
   if (existing) return;
   await startAnalysis(
     projectId,
     editorId,
-    analysisSchema.parse({
-      runId,
-      curve: { name: DEFAULT_MODEL.rotationCurve },
-      arms: {
-        custom: DEFAULT_MODEL.arms.map((a) => ({ name: a.name, Rref: a.RrefKpc, betaRefDeg: a.betaRefDeg, pitchDeg: a.pitchDeg, betaMinDeg: a.betaMinDeg, betaMaxDeg: a.betaMaxDeg })),
-      },
-      patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
-      resamples: 2000,
-      seed: 1,
-    }),
+    analysisSchema.parse({ runId, ...demoOrdering(), resamples: 2000, seed: 1 }),
   );
   await drainJobs();
 }
@@ -98,11 +104,12 @@ async function seedAnalysis(projectId: string, editorId: string, runId: string) 
 async function main() {
   const projectId = await ensureDemoAccounts();
   const editor = await getUserByEmail('editor@harborridge.example');
-  if (!editor) throw new Error('demo editor missing');
+  const owner = await getUserByEmail('owner@harborridge.example');
+  if (!editor || !owner) throw new Error('demo accounts missing');
   if (process.env.LANEWISE_SEED_ACCOUNTS_ONLY !== '1') {
     await seedCatalogs(projectId, editor.id);
     const runId = await seedRun(projectId, editor.id);
-    await seedAnalysis(projectId, editor.id, runId);
+    await seedAnalysis(projectId, editor.id, owner.id, runId);
   }
   console.log(`[seed] demo project ${projectId} ready`);
   await closeDb();

@@ -30,8 +30,8 @@ describe('a new team in the browser', () => {
 
     await page.getByRole('link', { name: 'Team' }).click();
     const colleague = uniqueEmail('e2e-colleague');
-    await page.getByLabel('E-mail', { exact: true }).fill(colleague);
-    await page.getByLabel('Role', { exact: true }).selectOption('editor');
+    await page.locator('input[name="inviteEmail"]').fill(colleague);
+    await page.locator('select[name="inviteRole"]').selectOption('editor');
     await page.getByRole('button', { name: 'Send invitation' }).click();
     await page.getByText(`Invitation sent to ${colleague}.`).waitFor();
 

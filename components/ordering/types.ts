@@ -6,12 +6,9 @@
  */
 import type { ArmSpec } from '@/lib/astro/arms';
 import type { ToolCurveName } from '@/lib/services/tools';
-import type { TracerKind } from '@/lib/tracers';
+import type { OrderingResult } from '@/lib/ordering/types';
 
 export type AnalysisStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
-
-/** A 95 % interval [lower, upper]. */
-export type Ci = [number, number];
 
 /** One arm as the API spells it in `arms.custom` (β in degrees, R_ref in kpc). */
 export interface CustomArmJson {
@@ -52,95 +49,11 @@ export interface AnalysisParams extends Partial<Omit<OrderingDefaults, 'curve' |
   seed: number;
 }
 
-export interface ClassSummary {
-  kind: TracerKind;
-  n: number;
-  medianOffsetKpc: number | null;
-  ci95: Ci | null;
-  meanOffsetKpc: number | null;
-  meanCi95: Ci | null;
-  medianAzimuthOffsetDeg: number | null;
-}
-
-export interface GasToStars {
-  n: number;
-  medianAcrossKpc: number | null;
-  ci95: Ci | null;
-  meanAcrossKpc: number | null;
-  medianAlongKpc: number | null;
-  pValue: number | null;
-}
-
-export interface DelaySummary {
-  n: number;
-  median: number | null;
-  ci95: Ci | null;
-}
-
-export interface PerArm {
-  arm: string;
-  n: number;
-  classes: { kind: TracerKind; n: number; medianOffsetKpc: number | null; ci95: Ci | null }[];
-  gasToStarsMedianKpc: number | null;
-}
-
-export interface RadialBin {
-  RminKpc: number;
-  RmaxKpc: number;
-  n: number;
-  medianAcrossKpc: number | null;
-  ci95: Ci | null;
-  insideCorotation: boolean;
-}
-
-export type DistanceChoice =
-  'near' | 'far' | 'tangent' | 'single' | 'independent' | 'override' | 'unresolved';
-
-export interface ResultComplex {
-  id: string;
-  lDeg: number;
-  bDeg: number;
-  vLsrKms: number | null;
-  distKpc: number | null;
-  distLoKpc: number | null;
-  distHiKpc: number | null;
-  choice: DistanceChoice;
-  reason: string;
-  flags: string[];
-  xKpc: number | null;
-  yKpc: number | null;
-  RKpc: number | null;
-  betaDeg: number | null;
-  arm: string | null;
-  perpOffsetKpc: number | null;
-  azimuthOffsetDeg: number | null;
-  gasToStarsAcrossKpc: number | null;
-  used: boolean;
-  excludedBecause: string | null;
-}
-
-export interface ResultSource {
-  complexId: string;
-  kind: TracerKind;
-  xKpc: number;
-  yKpc: number;
-  perpOffsetKpc: number | null;
-}
-
-export interface OrderingResult {
-  classes: ClassSummary[];
-  gasToStars: GasToStars;
-  delayMyr: DelaySummary;
-  ks: { d: number; pValue: number } | null;
-  perArm: PerArm[];
-  radialBins: RadialBin[];
-  corotationKpc: number | null;
-  exclusions: { complexes: number; used: number; reasons: Record<string, number> };
-  warnings: string[];
-  complexes: ResultComplex[];
-  sources: ResultSource[];
-  conventions: string;
-}
+// The result shapes are the pure module's own: one definition for the job that writes them
+// and the page that reads them.
+export type { Ci, ClassSummary, DistanceChoice, OrderingResult } from '@/lib/ordering/types';
+export type ResultComplex = OrderingResult['complexes'][number];
+export type ResultSource = OrderingResult['sources'][number];
 
 export interface Person {
   id: string;

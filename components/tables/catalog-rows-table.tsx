@@ -13,8 +13,8 @@ import {
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
+import { TablePager } from './table-pager';
 import { ErrorNote } from '@/components/ui/panel';
-import { formatCount } from './catalog-list';
 
 /** One canonical row as `GET /api/catalogs/{id}/rows` returns it; absent values are null. */
 export interface CatalogRow {
@@ -36,7 +36,6 @@ type RowsPage = { rows: CatalogRow[]; total: number; page: number; pageSize: num
 
 /** Columns the server sorts on (each has an index). */
 const SORTABLE = new Set(['row', 'name', 'l', 'b', 'v', 'radiusArcsec', 'lineWidthKms', 'distKpc']);
-const PAGE_SIZES = [25, 50, 100, 250, 500];
 
 const fixed = (decimals: number) => (x: number | null) =>
   x === null || x === undefined ? '—' : x.toFixed(decimals).replace(/^-/, '−');
@@ -229,9 +228,6 @@ export function CatalogRowsTable({ catalogId }: { catalogId: string }) {
     getRowId: (r) => String(r.row),
   });
 
-  const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
-  const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
-
   return (
     <div className="space-y-3">
       <form
@@ -346,62 +342,14 @@ export function CatalogRowsTable({ catalogId }: { catalogId: string }) {
         )}
       </div>
 
-      <div className="flex flex-wrap items-center gap-3 text-sm">
-        <span className="num text-ink-soft" data-testid="rows-range">
-          {formatCount(first)}–{formatCount(last)} of {formatCount(total)}
-        </span>
-        <label className="flex items-center gap-1.5">
-          <span className="text-ink-soft">Rows per page</span>
-          <select
-            className="rounded border border-rule bg-white px-2 py-1"
-            value={pagination.pageSize}
-            onChange={(e) => setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })}
-          >
-            {PAGE_SIZES.map((n) => (
-              <option key={n} value={n}>
-                {n}
-              </option>
-            ))}
-          </select>
-        </label>
-        <span className="ml-auto flex items-center gap-1.5">
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.firstPage()}
-            disabled={!table.getCanPreviousPage()}
-          >
-            First
-          </Button>
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.previousPage()}
-            disabled={!table.getCanPreviousPage()}
-          >
-            Previous
-          </Button>
-          <span className="num px-1" data-testid="page-of">
-            page {pagination.pageIndex + 1} of {pageCount}
-          </span>
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.nextPage()}
-            disabled={!table.getCanNextPage()}
-          >
-            Next
-          </Button>
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.lastPage()}
-            disabled={!table.getCanNextPage()}
-          >
-            Last
-          </Button>
-        </span>
-      </div>
+      <TablePager
+        table={table}
+        total={total}
+        pagination={pagination}
+        setPagination={setPagination}
+        sizeLabel="Rows per page"
+        rangeTestId="rows-range"
+      />
     </div>
   );
 }

@@ -16,10 +16,10 @@ import { TRACER_KINDS, tracerStyle } from '@/lib/tracers';
 import { REVIEW_TONE, REVIEW_WORDS, fmt, fmtCount } from '@/components/link-runs/format';
 import type { Complex, ComplexPage } from '@/components/link-runs/types';
 import { Button } from '@/components/ui/button';
+import { TablePager } from './table-pager';
 import { ErrorNote } from '@/components/ui/panel';
 import { TracerGlyph } from '@/components/ui/tracer-badge';
 
-const PAGE_SIZES = [25, 50, 100, 250, 500];
 /** Columns whose cells are numbers (right-aligned, monospaced). */
 const NUMERIC = new Set(['id', 'size', 'l', 'b', 'v', 'maxSepArcsec', 'maxDvKms', 'reliability']);
 
@@ -223,8 +223,6 @@ export function ComplexesTable({
     getRowId: (r) => r.id,
   });
 
-  const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
-  const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
   const offered = TRACER_KINDS.filter((k) => kinds.includes(k));
 
   return (
@@ -428,62 +426,14 @@ export function ComplexesTable({
         )}
       </div>
 
-      <div className="flex flex-wrap items-center gap-3 text-sm">
-        <span className="num text-ink-soft" data-testid="complexes-range">
-          {fmtCount(first)}–{fmtCount(last)} of {fmtCount(total)}
-        </span>
-        <label className="flex items-center gap-1.5">
-          <span className="text-ink-soft">Complexes per page</span>
-          <select
-            className="rounded border border-rule bg-white px-2 py-1"
-            value={pagination.pageSize}
-            onChange={(e) => setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })}
-          >
-            {PAGE_SIZES.map((n) => (
-              <option key={n} value={n}>
-                {n}
-              </option>
-            ))}
-          </select>
-        </label>
-        <span className="ml-auto flex items-center gap-1.5">
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.firstPage()}
-            disabled={!table.getCanPreviousPage()}
-          >
-            First
-          </Button>
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.previousPage()}
-            disabled={!table.getCanPreviousPage()}
-          >
-            Previous
-          </Button>
-          <span className="num px-1">
-            page {pagination.pageIndex + 1} of {pageCount}
-          </span>
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.nextPage()}
-            disabled={!table.getCanNextPage()}
-          >
-            Next
-          </Button>
-          <Button
-            variant="quiet"
-            className="px-2 py-1"
-            onClick={() => table.lastPage()}
-            disabled={!table.getCanNextPage()}
-          >
-            Last
-          </Button>
-        </span>
-      </div>
+      <TablePager
+        table={table}
+        total={total}
+        pagination={pagination}
+        setPagination={setPagination}
+        sizeLabel="Complexes per page"
+        rangeTestId="complexes-range"
+      />
     </div>
   );
 }

@@ -17,5 +17,3 @@ export const forbidden = (what = 'do this') =>
 export const notFound = (what: string) => new HttpError(404, 'not_found', `${what} was not found.`);
 export const conflict = (message: string, details?: unknown) =>
   new HttpError(409, 'conflict', message, details);
-export const badRequest = (message: string, details?: unknown) =>
-  new HttpError(400, 'bad_request', message, details);

@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
@@ -95,7 +95,7 @@ async function loadComplexes(runId: string, catalogIds: string[]): Promise<Order
   const byId = new Map<number, OrderingComplex>();
   const [ids] = await pool().query<RowDataPacket[]>('SELECT id FROM complexes WHERE run_id = ? ORDER BY id', [runId]);
   for (const r of ids) byId.set(Number(r.id), { id: String(r.id), members: [], distanceOverride: null });
-  const kinds = await db.select({ id: catalogs.id, kind: catalogs.kind }).from(catalogs);
+  const kinds = await db.select({ id: catalogs.id, kind: catalogs.kind }).from(catalogs).where(inArray(catalogs.id, catalogIds));
   for (const catalogId of catalogIds) {
     const kind = kinds.find((k) => k.id === catalogId)?.kind ?? 'other';
     const [rows] = await pool().query<RowDataPacket[]>({

@@ -5,7 +5,7 @@ import { db, pool } from '@/db/client';
 import { HttpError } from '@/lib/http/errors';
 import { csvLine } from '@/lib/export/csv';
 import type { RowDataPacket } from 'mysql2';
-import { getCatalogDetail, pointsPath } from './catalogs';
+import { catalogState, pointsPath } from './catalogs';
 import { rowsTable, rowsTableName } from './catalog-tables';
 
 /** Canonical columns a table may sort on, each backed by an index on (catalog_id, column). */
@@ -39,7 +39,7 @@ export const rowsQuerySchema = z.object({
 export type RowsQuery = z.infer<typeof rowsQuerySchema>;
 
 async function assertReady(catalogId: string) {
-  const c = await getCatalogDetail(catalogId);
+  const c = await catalogState(catalogId);
   if (c.status !== 'ready') {
     throw new HttpError(409, 'not_ready', `The catalog is ${c.status}; its rows are available once it is ready.`);
   }

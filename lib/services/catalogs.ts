@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { asc, desc, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '@/db/client';
 import { TRACER_KINDS, catalogRejects, catalogs, jobs, users } from '@/db/schema';
@@ -184,6 +184,16 @@ export async function catalogProject(id: string): Promise<string> {
   return r.projectId;
 }
 
+/** What readers of a catalog's rows need to know: one primary-key lookup, no report. */
+export async function catalogState(id: string) {
+  const [c] = await db
+    .select({ status: catalogs.status, rowCount: catalogs.rowCount, columns: catalogs.columns })
+    .from(catalogs)
+    .where(eq(catalogs.id, id));
+  if (!c) throw notFound('Catalog');
+  return c;
+}
+
 export async function getCatalogDetail(id: string) {
   const summary = await getCatalog(id);
   const [c] = await db.select({ mapping: catalogs.mapping, columns: catalogs.columns }).from(catalogs).where(eq(catalogs.id, id));
@@ -210,9 +220,4 @@ export async function deleteCatalog(id: string): Promise<void> {
 /** Where the plot points of a ready catalog are kept (Float32 l, b, v triples). */
 export function pointsPath(id: string) {
   return path.join(/* turbopackIgnore: true */ uploadDir(id), 'points.f32');
-}
-
-export async function readyCatalogIds(projectId: string): Promise<string[]> {
-  const rows = await db.select({ id: catalogs.id }).from(catalogs).where(and(eq(catalogs.projectId, projectId), eq(catalogs.status, 'ready')));
-  return rows.map((r) => r.id);
 }

@@ -99,21 +99,27 @@ export type RunJson = {
   createdBy: { id: string; name: string } | null;
 };
 
-async function toRunJson(r: typeof linkRuns.$inferSelect, creatorName: string | null): Promise<RunJson> {
-  const cats = await db.select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind }).from(catalogs).where(inArray(catalogs.id, r.catalogIds));
-  let progress = r.progress;
-  if (r.status === 'running' && r.jobId) {
-    const [j] = await db.select({ progress: jobs.progress }).from(jobs).where(eq(jobs.id, r.jobId));
-    progress = j?.progress ?? progress;
-  }
+type CatalogNames = Map<string, { id: string; name: string; kind: string }>;
+
+/** The names and classes of a project's catalogs, read once per request (not once per run). */
+async function catalogNames(projectId: string): Promise<CatalogNames> {
+  const cats = await db.select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind }).from(catalogs).where(eq(catalogs.projectId, projectId));
+  return new Map(cats.map((c) => [c.id, c]));
+}
+
+type RunRow = { r: typeof linkRuns.$inferSelect; creatorName: string | null; jobProgress: number | null };
+
+function toRunJson({ r, creatorName, jobProgress }: RunRow, cats: CatalogNames): RunJson {
+  // A running job reports progress on its own row; the run's copy is final only once done.
+  const progress = r.status === 'done' ? 1 : r.status === 'running' ? (jobProgress ?? r.progress) : r.progress;
   return {
     id: r.id,
     projectId: r.projectId,
     name: r.name,
     status: r.status,
-    progress: r.status === 'done' ? 1 : progress,
+    progress,
     params: r.params,
-    catalogs: r.catalogIds.map((id) => cats.find((c) => c.id === id) ?? { id, name: '(deleted catalog)', kind: 'other' }),
+    catalogs: r.catalogIds.map((id) => cats.get(id) ?? { id, name: '(deleted catalog)', kind: 'other' }),
     summary: r.status === 'done' ? r.summary ?? null : null,
     error: r.error,
     createdAt: r.createdAt.toISOString(),
@@ -123,20 +129,29 @@ async function toRunJson(r: typeof linkRuns.$inferSelect, creatorName: string | 
   };
 }
 
+const runColumns = { r: linkRuns, creatorName: users.name, jobProgress: jobs.progress };
+
 export async function listRuns(projectId: string): Promise<RunJson[]> {
   const rows = await db
-    .select({ r: linkRuns, creatorName: users.name })
+    .select(runColumns)
     .from(linkRuns)
     .leftJoin(users, eq(users.id, linkRuns.createdBy))
+    .leftJoin(jobs, eq(jobs.id, linkRuns.jobId))
     .where(eq(linkRuns.projectId, projectId))
     .orderBy(desc(linkRuns.createdAt));
-  return Promise.all(rows.map((x) => toRunJson(x.r, x.creatorName)));
+  const cats = await catalogNames(projectId);
+  return rows.map((x) => toRunJson(x, cats));
 }
 
 export async function getRun(runId: string): Promise<RunJson> {
-  const [x] = await db.select({ r: linkRuns, creatorName: users.name }).from(linkRuns).leftJoin(users, eq(users.id, linkRuns.createdBy)).where(eq(linkRuns.id, runId));
+  const [x] = await db
+    .select(runColumns)
+    .from(linkRuns)
+    .leftJoin(users, eq(users.id, linkRuns.createdBy))
+    .leftJoin(jobs, eq(jobs.id, linkRuns.jobId))
+    .where(eq(linkRuns.id, runId));
   if (!x) throw notFound('Link run');
-  return toRunJson(x.r, x.creatorName);
+  return toRunJson(x, await catalogNames(x.r.projectId));
 }
 
 /** The project of a run, for the access check (404 when there is no such run). */

@@ -1,4 +1,4 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '@/db/client';
 import { auditLog, projectMembers, projects } from '@/db/schema';
@@ -99,9 +99,4 @@ export async function updateProject(
 
 export async function deleteProject(id: string): Promise<void> {
   await db.delete(projects).where(eq(projects.id, id));
-}
-
-export async function countProjects(): Promise<number> {
-  const [r] = await db.select({ n: sql<number>`count(*)` }).from(projects);
-  return Number(r?.n ?? 0);
 }

@@ -10,5 +10,6 @@ await startDatabase('test');
 resetDb('test');
 const settings = profileSettings('test');
 migrate(settings.env);
-const env = { ...settings.env, UPLOAD_LIMIT_MB: '2048' };
+// No run-end e-mails: no mail catcher runs beside a benchmark.
+const env = { ...settings.env, UPLOAD_LIMIT_MB: '2048', RUN_NOTICE_AFTER_SECONDS: '86400' };
 process.exit(runStep('bench', bin('tsx'), [script, ...args], env));

@@ -73,7 +73,7 @@ function describe(description: string | undefined, indent: string): string {
 
 /**
  * Writes a VOTable 1.4 document with one RESOURCE and one TABLE in TABLEDATA serialisation,
- * as text pieces pulled lazily (one per row after the header), so exports of millions of rows
+ * as text pieces pulled lazily (rows in pieces of about 64 kB), so exports of millions of rows
  * stream. Cells: null, undefined and NaN/±Infinity become empty `<TD></TD>`; booleans `T`/`F`;
  * text is XML-escaped.
  */
@@ -97,16 +97,23 @@ export async function* votableStream(options: VotableOptions): AsyncGenerator<st
     head += f.description ? `>\n${describe(f.description, '        ')}      </FIELD>\n` : '/>\n';
   }
   yield `${head}      <DATA>\n        <TABLEDATA>\n`;
+  // Rows are gathered into pieces of about 64 kB: one piece per row costs more than the rows.
+  let piece = '';
   for await (const row of options.rows) {
     if (row.length !== fields.length) {
       throw new RangeError(
         `VOTable row has ${row.length} cells but the table has ${fields.length} fields`,
       );
     }
-    let tr = '          <TR>';
-    for (let i = 0; i < row.length; i++) tr += `<TD>${cellText(row[i], fields[i].datatype)}</TD>`;
-    yield `${tr}</TR>\n`;
+    piece += '          <TR>';
+    for (let i = 0; i < row.length; i++) piece += `<TD>${cellText(row[i], fields[i].datatype)}</TD>`;
+    piece += '</TR>\n';
+    if (piece.length > 65_536) {
+      yield piece;
+      piece = '';
+    }
   }
+  if (piece) yield piece;
   yield '        </TABLEDATA>\n      </DATA>\n    </TABLE>\n  </RESOURCE>\n</VOTABLE>\n';
 }
 

@@ -3,6 +3,7 @@ import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
 import { catalogs } from '@/db/schema';
 import { csvLine } from '@/lib/export/csv';
+import { csvLineSql, type CsvSqlKind } from '@/lib/export/csv-sql';
 import { votableStream, type VotableField } from '@/lib/export/votable';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
@@ -10,123 +11,124 @@ import pkg from '@/package.json';
 
 export type ExportShape = 'links' | 'complexes' | 'sources';
 
-type Table = { fields: VotableField[]; rows: AsyncGenerator<unknown[]> };
-
-const CHUNK = 10_000;
-
-/** Reads a run's table in primary-key order, a chunk at a time: flat memory for any size. */
-async function* chunks(query: string, runId: string): AsyncGenerator<RowDataPacket[]> {
-  let after = -1;
-  for (;;) {
-    const [rows] = await pool().query<RowDataPacket[]>(query, [runId, after, CHUNK]);
-    if (!rows.length) return;
-    yield rows;
-    after = Number(rows[rows.length - 1].id);
-  }
+/** A column of an export: its VOTable field, the SQL that reads it and how it becomes CSV. */
+interface Column {
+  field: VotableField;
+  sql: string;
+  kind: CsvSqlKind;
 }
 
-const SOURCE_COLUMNS = ['name', 'l', 'b', 'v'] as const;
-
-function linksTable(runId: string): Table {
-  const fields: VotableField[] = [
-    { name: 'catalog_a', datatype: 'char', arraysize: '*', ucd: 'meta.id' },
-    { name: 'row_a', datatype: 'int', description: '1-based data row of catalog A as uploaded' },
-    { name: 'catalog_b', datatype: 'char', arraysize: '*', ucd: 'meta.id' },
-    { name: 'row_b', datatype: 'int', description: '1-based data row of catalog B as uploaded' },
-    { name: 'separation_arcsec', datatype: 'double', unit: 'arcsec', ucd: 'pos.angDistance' },
-    { name: 'delta_v_kms', datatype: 'double', unit: 'km/s', description: 'v_LSR(B) − v_LSR(A)' },
-    { name: 'complex_id', datatype: 'int', ucd: 'meta.id' },
-    { name: 'reliability', datatype: 'double', description: '1 − chance/real links at this separation' },
-    { name: 'match_radius_arcsec', datatype: 'double', unit: 'arcsec' },
-    ...SOURCE_COLUMNS.map((c) => ({ name: `a_${c}`, datatype: c === 'name' ? 'char' : 'double', arraysize: c === 'name' ? '*' : undefined }) as VotableField),
-    ...SOURCE_COLUMNS.map((c) => ({ name: `b_${c}`, datatype: c === 'name' ? 'char' : 'double', arraysize: c === 'name' ? '*' : undefined }) as VotableField),
-  ];
-  async function* rows() {
-    const [pairs] = await pool().query<RowDataPacket[]>('SELECT DISTINCT catalog_a, catalog_b FROM links WHERE run_id = ?', [runId]);
-    for (const pair of pairs) {
-      // One query per chunk joins both catalogs' rows on their primary keys.
-      const query = `SELECT l.id, l.catalog_a, l.row_a, l.catalog_b, l.row_b, l.sep_arcsec, l.dv_kms, l.complex_id, l.reliability, l.radius_arcsec,
-          a.name, a.l, a.b, a.v, b.name, b.l, b.b, b.v
-        FROM links l JOIN \`${rowsTableName(pair.catalog_a)}\` a ON a.\`row\` = l.row_a JOIN \`${rowsTableName(pair.catalog_b)}\` b ON b.\`row\` = l.row_b
-        WHERE l.run_id = ? AND l.catalog_a = ? AND l.catalog_b = ? AND l.id > ? ORDER BY l.id LIMIT ?`;
-      let after = -1;
-      for (;;) {
-        const [chunk] = await pool().query<RowDataPacket[]>({ sql: query, values: [runId, pair.catalog_a, pair.catalog_b, after, CHUNK], rowsAsArray: true });
-        if (!chunk.length) break;
-        for (const r of chunk as unknown as unknown[][]) yield r.slice(1);
-        after = Number((chunk[chunk.length - 1] as unknown as unknown[])[0]);
-      }
-    }
-  }
-  return { fields, rows: rows() };
+/**
+ * One query's worth of an export, read in ranges of `key` from `lo` to `hi`: `from` holds the
+ * tables and a WHERE clause whose `?` are `values`.
+ */
+interface Segment {
+  from: string;
+  values: unknown[];
+  key: string;
+  lo: number;
+  hi: number;
 }
 
-function complexesTable(runId: string): Table {
-  const fields: VotableField[] = [
-    { name: 'complex_id', datatype: 'int', ucd: 'meta.id' },
-    { name: 'name', datatype: 'char', arraysize: '*', description: 'name of its first member' },
-    { name: 'size', datatype: 'int' },
-    { name: 'links', datatype: 'int' },
-    { name: 'n_hi', datatype: 'int' },
-    { name: 'n_co', datatype: 'int' },
-    { name: 'n_hii', datatype: 'int' },
-    { name: 'n_ob', datatype: 'int' },
-    { name: 'n_other', datatype: 'int' },
-    { name: 'l_deg', datatype: 'double', unit: 'deg', ucd: 'pos.galactic.lon', description: 'centroid' },
-    { name: 'b_deg', datatype: 'double', unit: 'deg', ucd: 'pos.galactic.lat', description: 'centroid' },
-    { name: 'v_lsr_kms', datatype: 'double', unit: 'km/s', ucd: 'spect.dopplerVeloc', description: 'mean of members with a velocity' },
-    { name: 'max_separation_arcsec', datatype: 'double', unit: 'arcsec' },
-    { name: 'max_abs_delta_v_kms', datatype: 'double', unit: 'km/s' },
-    { name: 'reliability', datatype: 'double', description: 'lowest reliability of its links' },
-    { name: 'over_cap', datatype: 'boolean' },
-    { name: 'review', datatype: 'char', arraysize: '*' },
-    { name: 'review_note', datatype: 'char', arraysize: '*' },
-    { name: 'reviewed_at', datatype: 'char', arraysize: '*' },
+interface Table {
+  columns: Column[];
+  segments: Segment[];
+  /** Rows per range: bounds each chunk's text (the longest review note is 4 000 characters). */
+  chunkRows: number;
+}
+
+const col = (name: string, sql: string, kind: CsvSqlKind, extra: Partial<VotableField> = {}): Column => ({
+  field: { name, datatype: kind === 'text' || kind === 'time' || kind === 'raw' ? 'char' : kind === 'boolean' ? 'boolean' : 'double', ...extra },
+  sql,
+  kind,
+});
+const intCol = (name: string, sql: string, extra: Partial<VotableField> = {}): Column => ({ field: { name, datatype: 'int', ...extra }, sql, kind: 'number' });
+
+/** The key range of `key` in `from`, or nothing when it holds no rows. */
+async function segment(from: string, values: unknown[], key: string): Promise<Segment[]> {
+  const [[r]] = await pool().query<RowDataPacket[]>(`SELECT MIN(${key}) AS lo, MAX(${key}) AS hi FROM ${from}`, values);
+  return r.lo === null ? [] : [{ from, values, key, lo: Number(r.lo), hi: Number(r.hi) }];
+}
+
+const sourceColumns = (alias: 'a' | 'b'): Column[] => [
+  col(`${alias}_name`, `${alias}.name`, 'text'),
+  col(`${alias}_l`, `${alias}.l`, 'number'),
+  col(`${alias}_b`, `${alias}.b`, 'number'),
+  col(`${alias}_v`, `${alias}.v`, 'number'),
+];
+
+async function linksTable(runId: string): Promise<Table> {
+  const columns: Column[] = [
+    col('catalog_a', 'l.catalog_a', 'raw', { ucd: 'meta.id' }),
+    intCol('row_a', 'l.row_a', { description: '1-based data row of catalog A as uploaded' }),
+    col('catalog_b', 'l.catalog_b', 'raw', { ucd: 'meta.id' }),
+    intCol('row_b', 'l.row_b', { description: '1-based data row of catalog B as uploaded' }),
+    col('separation_arcsec', 'l.sep_arcsec', 'number', { unit: 'arcsec', ucd: 'pos.angDistance' }),
+    col('delta_v_kms', 'l.dv_kms', 'number', { unit: 'km/s', description: 'v_LSR(B) − v_LSR(A)' }),
+    intCol('complex_id', 'l.complex_id', { ucd: 'meta.id' }),
+    col('reliability', 'l.reliability', 'number', { description: '1 − chance/real links at this separation' }),
+    col('match_radius_arcsec', 'l.radius_arcsec', 'number', { unit: 'arcsec' }),
+    ...sourceColumns('a'),
+    ...sourceColumns('b'),
   ];
-  async function* rows() {
-    for await (const chunk of chunks(
-      'SELECT id, name, size, link_count, n_hi, n_co, n_hii, n_ob, n_other, l, b, v, max_sep_arcsec, max_dv_kms, reliability, over_cap, review, review_note, reviewed_at FROM complexes WHERE run_id = ? AND id > ? ORDER BY id LIMIT ?',
-      runId,
-    )) {
-      for (const r of chunk) {
-        yield [
-          r.id, r.name, r.size, r.link_count, r.n_hi, r.n_co, r.n_hii, r.n_ob, r.n_other, r.l, r.b, r.v, r.max_sep_arcsec,
-          r.max_dv_kms, r.reliability, !!r.over_cap, r.review, r.review_note, r.reviewed_at ? new Date(r.reviewed_at).toISOString() : null,
-        ];
-      }
-    }
+  const [pairs] = await pool().query<RowDataPacket[]>(
+    'SELECT catalog_a, catalog_b, MIN(id) AS lo FROM links WHERE run_id = ? GROUP BY catalog_a, catalog_b ORDER BY lo',
+    [runId],
+  );
+  const segments: Segment[] = [];
+  for (const p of pairs) {
+    // Both catalogs' rows are joined on their primary keys; links are read in id ranges.
+    const from = `links l JOIN \`${rowsTableName(p.catalog_a)}\` a ON a.\`row\` = l.row_a JOIN \`${rowsTableName(p.catalog_b)}\` b ON b.\`row\` = l.row_b
+      WHERE l.run_id = ? AND l.catalog_a = ? AND l.catalog_b = ?`;
+    segments.push(...(await segment(from, [runId, p.catalog_a, p.catalog_b], 'l.id')));
   }
-  return { fields, rows: rows() };
+  return { columns, segments, chunkRows: 10_000 };
+}
+
+async function complexesTable(runId: string): Promise<Table> {
+  const columns: Column[] = [
+    intCol('complex_id', 'c.id', { ucd: 'meta.id' }),
+    col('name', 'c.name', 'text', { description: 'name of its first member' }),
+    intCol('size', 'c.size'),
+    intCol('links', 'c.link_count'),
+    intCol('n_hi', 'c.n_hi'),
+    intCol('n_co', 'c.n_co'),
+    intCol('n_hii', 'c.n_hii'),
+    intCol('n_ob', 'c.n_ob'),
+    intCol('n_other', 'c.n_other'),
+    col('l_deg', 'c.l', 'number', { unit: 'deg', ucd: 'pos.galactic.lon', description: 'centroid' }),
+    col('b_deg', 'c.b', 'number', { unit: 'deg', ucd: 'pos.galactic.lat', description: 'centroid' }),
+    col('v_lsr_kms', 'c.v', 'number', { unit: 'km/s', ucd: 'spect.dopplerVeloc', description: 'mean of members with a velocity' }),
+    col('max_separation_arcsec', 'c.max_sep_arcsec', 'number', { unit: 'arcsec' }),
+    col('max_abs_delta_v_kms', 'c.max_dv_kms', 'number', { unit: 'km/s' }),
+    col('reliability', 'c.reliability', 'number', { description: 'lowest reliability of its links' }),
+    col('over_cap', 'c.over_cap', 'boolean'),
+    col('review', 'c.review', 'text'),
+    col('review_note', 'c.review_note', 'text'),
+    col('reviewed_at', 'c.reviewed_at', 'time'),
+  ];
+  return { columns, segments: await segment('complexes c WHERE c.run_id = ?', [runId], 'c.id'), chunkRows: 2_000 };
 }
 
 /** Every source of the run's catalogs with its complex (empty when it has no link). */
-function sourcesTable(runId: string, catalogIds: string[]): Table {
-  const fields: VotableField[] = [
-    { name: 'catalog_id', datatype: 'char', arraysize: '*', ucd: 'meta.id' },
-    { name: 'row', datatype: 'int' },
-    { name: 'name', datatype: 'char', arraysize: '*' },
-    { name: 'l_deg', datatype: 'double', unit: 'deg', ucd: 'pos.galactic.lon' },
-    { name: 'b_deg', datatype: 'double', unit: 'deg', ucd: 'pos.galactic.lat' },
-    { name: 'v_lsr_kms', datatype: 'double', unit: 'km/s', ucd: 'spect.dopplerVeloc' },
-    { name: 'complex_id', datatype: 'int', ucd: 'meta.id' },
-  ];
-  async function* rows() {
-    for (const cat of catalogIds) {
-      let after = 0;
-      for (;;) {
-        const [chunk] = await pool().query<RowDataPacket[]>(
-          `SELECT s.\`row\`, s.name, s.l, s.b, s.v, m.complex_id FROM \`${rowsTableName(cat)}\` s
-           LEFT JOIN complex_members m ON m.run_id = ? AND m.catalog_id = ? AND m.\`row\` = s.\`row\`
-           WHERE s.\`row\` > ? ORDER BY s.\`row\` LIMIT ?`,
-          [runId, cat, after, CHUNK],
-        );
-        if (!chunk.length) break;
-        for (const r of chunk) yield [cat, r.row, r.name, r.l, r.b, r.v, r.complex_id];
-        after = Number(chunk[chunk.length - 1].row);
-      }
-    }
+async function sourcesTable(runId: string, catalogIds: string[]): Promise<Table> {
+  const segments: Segment[] = [];
+  for (const cat of catalogIds) {
+    // The one-row `k` carries the catalog id into every line (rowsTableName checked it is a UUID).
+    const from = `\`${rowsTableName(cat)}\` s JOIN (SELECT '${cat}' AS id) k
+      LEFT JOIN complex_members m ON m.run_id = ? AND m.catalog_id = k.id AND m.\`row\` = s.\`row\` WHERE TRUE`;
+    segments.push(...(await segment(from, [runId], 's.`row`')));
   }
-  return { fields, rows: rows() };
+  const columns: Column[] = [
+    col('catalog_id', 'k.id', 'raw', { ucd: 'meta.id' }),
+    intCol('row', 's.`row`'),
+    col('name', 's.name', 'text'),
+    col('l_deg', 's.l', 'number', { unit: 'deg', ucd: 'pos.galactic.lon' }),
+    col('b_deg', 's.b', 'number', { unit: 'deg', ucd: 'pos.galactic.lat' }),
+    col('v_lsr_kms', 's.v', 'number', { unit: 'km/s', ucd: 'spect.dopplerVeloc' }),
+    intCol('complex_id', 'm.complex_id', { ucd: 'meta.id' }),
+  ];
+  return { columns, segments, chunkRows: 10_000 };
 }
 
 async function table(runId: string, shape: ExportShape): Promise<Table> {
@@ -136,25 +138,83 @@ async function table(runId: string, shape: ExportShape): Promise<Table> {
   return sourcesTable(runId, run.catalogIds);
 }
 
-/** A run's links, complexes or sources as CSV text pieces (header first). */
-export async function* runCsv(runId: string, shape: ExportShape): AsyncGenerator<string> {
+/**
+ * Runs `fetch` over every key range of every segment, in order, with the next range already
+ * being read while the caller consumes this one: the database works on one core while Node
+ * writes the response on the other.
+ */
+async function* ranges<T>(t: Table, fetch: (s: Segment, lo: number, hi: number) => Promise<T>): AsyncGenerator<T> {
+  const todo = t.segments.flatMap((s) => {
+    const out: [Segment, number][] = [];
+    for (let lo = s.lo; lo <= s.hi; lo += t.chunkRows) out.push([s, lo]);
+    return out;
+  });
+  const read = (i: number) => (i < todo.length ? fetch(todo[i][0], todo[i][1], todo[i][1] + t.chunkRows) : undefined);
+  let pending = read(0);
+  for (let i = 0; pending; i++) {
+    const ahead = read(i + 1);
+    // Keep the read-ahead from raising an unhandled rejection if the consumer stops first.
+    ahead?.catch(() => undefined);
+    yield await pending;
+    pending = ahead;
+  }
+}
+
+const rangeWhere = (s: Segment) => `${s.from} AND ${s.key} >= ? AND ${s.key} < ?`;
+
+/** Longest text MariaDB may build for one chunk; a chunk that reaches it is refused, never cut. */
+const MAX_CHUNK_BYTES = 256 * 1024 * 1024;
+
+/**
+ * A run's links, complexes or sources as CSV: the header as text, then one piece of UTF-8 per
+ * chunk of rows, each assembled by MariaDB (see lib/export/csv-sql.ts).
+ */
+export async function* runCsv(runId: string, shape: ExportShape): AsyncGenerator<string | Uint8Array> {
   const t = await table(runId, shape);
-  yield csvLine(t.fields.map((f) => f.name));
-  let buf = '';
-  for await (const row of t.rows) {
-    buf += csvLine(row);
-    if (buf.length > 1 << 16) {
-      yield buf;
-      buf = '';
+  yield csvLine(t.columns.map((c) => c.field.name));
+  const line = csvLineSql(t.columns);
+  for await (const piece of ranges(t, async (s, lo, hi) => {
+    const [[r]] = await pool().query<RowDataPacket[]>(
+      `SET STATEMENT group_concat_max_len = ${MAX_CHUNK_BYTES} FOR
+       SELECT CAST(GROUP_CONCAT(${line} ORDER BY ${s.key} SEPARATOR '') AS BINARY) AS text FROM ${rangeWhere(s)}`,
+      [...s.values, lo, hi],
+    );
+    const text = r.text as Buffer | null;
+    if (text && text.length >= MAX_CHUNK_BYTES) throw new Error(`export chunk of ${shape} from ${s.key} = ${lo} is too large to write`);
+    return text;
+  })) {
+    if (piece?.length) yield piece;
+  }
+}
+
+/** Rows of a table as arrays of JavaScript values (booleans and times converted). */
+async function* tableRows(t: Table): AsyncGenerator<unknown[]> {
+  const select = t.columns.map((c) => c.sql).join(', ');
+  const kinds = t.columns.map((c) => c.kind);
+  for await (const chunk of ranges(t, async (s, lo, hi) => {
+    const [rows] = await pool().query({ sql: `SELECT ${select} FROM ${rangeWhere(s)} ORDER BY ${s.key}`, values: [...s.values, lo, hi], rowsAsArray: true });
+    return rows as unknown as unknown[][];
+  })) {
+    for (const r of chunk) {
+      for (let i = 0; i < r.length; i++) {
+        if (kinds[i] === 'boolean' && r[i] !== null) r[i] = !!r[i];
+        else if (kinds[i] === 'time' && r[i] !== null) r[i] = new Date(r[i] as Date).toISOString();
+      }
+      yield r;
     }
   }
-  if (buf) yield buf;
 }
 
 /** The same tables as VOTable 1.4 TABLEDATA. */
 export async function runVotable(runId: string, shape: ExportShape): Promise<AsyncGenerator<string>> {
   const t = await table(runId, shape);
-  return votableStream({ resourceName: `lanewise-link-run-${runId}`, tableName: shape, description: `Lanewise link run ${runId}: ${shape}`, fields: t.fields, rows: t.rows });
+  return votableStream({
+    resourceName: `lanewise-link-run-${runId}`,
+    tableName: shape,
+    description: `Lanewise link run ${runId}: ${shape}`,
+    fields: t.columns.map((c) => c.field),
+    rows: tableRows(t),
+  });
 }
 
 /** Everything needed to reproduce and cite a run: parameters, versions and references. */

@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import mysql from 'mysql2/promise';
+import Papa from 'papaparse';
 import { countMail, waitForMail, type Client } from '../helpers/client';
 import { upload, waitForCatalog } from '../helpers/catalogs';
 import { makeTeam, type Team } from '../helpers/team';
@@ -125,16 +126,29 @@ describe('link runs through the API', () => {
     expect(detail.body.complex.members[0].original.GLON).toBeDefined();
 
     expect((await t.viewer.patch(`/api/link-runs/${start.body.run.id}/complexes/${id}`, { review: 'accepted', note: 'x' })).status).toBe(403);
-    const reviewed = await t.editor.json<{ complex: { review: string; reviewedBy: { id: string } } }>('PATCH', `/api/link-runs/${start.body.run.id}/complexes/${id}`, { review: 'doubtful', note: 'velocity offset large' });
+    // A note that a spreadsheet would run as a formula, with a quote, a comma and a line break.
+    const note = '=velocity offset large, "see" spectra\nsecond look';
+    const reviewed = await t.editor.json<{ complex: { review: string; reviewedAt: string; reviewedBy: { id: string } } }>('PATCH', `/api/link-runs/${start.body.run.id}/complexes/${id}`, { review: 'doubtful', note });
     expect(reviewed.status).toBe(200);
     expect(reviewed.body.complex.review).toBe('doubtful');
     expect(reviewed.body.complex.reviewedBy.id).toBe(t.ids.editor);
     const after = await t.viewer.json<{ complex: { history: { review: string; note: string; by: { id: string } }[] } }>('GET', `/api/link-runs/${start.body.run.id}/complexes/${id}`);
-    expect(after.body.complex.history[0]).toMatchObject({ review: 'doubtful', note: 'velocity offset large', by: { id: t.ids.editor } });
+    expect(after.body.complex.history[0]).toMatchObject({ review: 'doubtful', note, by: { id: t.ids.editor } });
     const doubtful = await t.viewer.json<{ total: number }>('GET', `/api/link-runs/${start.body.run.id}/complexes?review=doubtful`);
     expect(doubtful.body.total).toBe(1);
 
-    expect((await t.viewer.get(`/api/link-runs/${start.body.run.id}/export.vot?shape=complexes`)).status).toBe(200);
+    // Exports: every complex and every source once; the note comes back escaped, never as a formula.
+    const complexesCsv = Papa.parse<Record<string, string>>(await (await t.viewer.get(`/api/link-runs/${start.body.run.id}/export.csv?shape=complexes`)).text(), { header: true, skipEmptyLines: true }).data;
+    const all = await t.viewer.json<{ total: number }>('GET', `/api/link-runs/${start.body.run.id}/complexes`);
+    expect(complexesCsv.length).toBe(all.body.total);
+    expect(complexesCsv.find((c) => c.complex_id === id)).toMatchObject({ review: 'doubtful', review_note: `'${note}`, reviewed_at: reviewed.body.complex.reviewedAt, over_cap: 'false' });
+    const sourcesCsv = Papa.parse<Record<string, string>>(await (await t.viewer.get(`/api/link-runs/${start.body.run.id}/export.csv?shape=sources`)).text(), { header: true, skipEmptyLines: true }).data;
+    expect(sourcesCsv.length).toBe(A.length + B.length);
+    expect(sourcesCsv.filter((s) => s.complex_id === id).length).toBe(detail.body.complex.members.length);
+    expect(new Set(sourcesCsv.map((s) => s.catalog_id))).toEqual(new Set([catA, catB]));
+    const vot = await (await t.viewer.get(`/api/link-runs/${start.body.run.id}/export.vot?shape=complexes`)).text();
+    expect(vot.match(/<TR>/g)?.length).toBe(all.body.total);
+    expect(vot).toContain('<TD>=velocity offset large, &quot;see&quot; spectra\nsecond look</TD>');
     const methods = await t.viewer.json<{ parameters: { linkMode: string }; references: string[] }>('GET', `/api/link-runs/${start.body.run.id}/methods.json`);
     expect(methods.body.parameters.linkMode).toBe('mutual');
     expect(methods.body.references.length).toBeGreaterThan(0);

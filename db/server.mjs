@@ -131,8 +131,8 @@ export async function startDb(profile = 'dev') {
       '--character-set-server=utf8mb4',
       '--collation-server=utf8mb4_unicode_ci',
       '--innodb-buffer-pool-size=1G',
-      // Index builds after a bulk load sort in memory: a larger buffer makes them several times faster.
-      '--innodb-sort-buffer-size=64M',
+      // innodb_sort_buffer_size stays at its 1 MB default: building a catalog's seven indexes
+      // after a 1 000 000-row load took 4.1–4.5 s with it and 8.2 s with 64 MB (bench:ingest).
       '--innodb-log-file-size=256M',
       '--innodb-flush-log-at-trx-commit=2',
       '--max-allowed-packet=256M',

@@ -48,6 +48,8 @@ const INK_SOFT = '#4a545b';
 const RULE = '#bdb4a0';
 /** Up to this many points in view are drawn as marker shapes; more as density pixels. */
 export const MARKER_LIMIT = 5_000;
+/** Name of the performance measure each redraw records. */
+export const DRAW_MEASURE = 'lanewise:scatter-draw';
 /** Points kept in the SVG download; the rest are left out by taking every k-th point. */
 export const SVG_POINT_LIMIT = 20_000;
 
@@ -418,6 +420,7 @@ export function ScatterCanvas(p: Props) {
     canvas.height = Math.round(height * dpr);
     const ctx = canvas.getContext('2d');
     if (!ctx) return;
+    const started = performance.now();
     const fr = frame(view, width, height, x, y);
     const w = Math.round(fr.w);
     const h = Math.round(fr.h);
@@ -438,7 +441,9 @@ export function ScatterCanvas(p: Props) {
       { x, y, colour, shape, legend },
       `${binned.shown.toLocaleString('en-US')} points`,
     );
-  }, [xs, ys, view, width, height, x, y, colour, shape, legend]);
+    // Visible in the browser's performance panel; `npm run bench:plots` reads it.
+    performance.measure(DRAW_MEASURE, { start: started, detail: { points: binned.shown, testId } });
+  }, [xs, ys, view, width, height, x, y, colour, shape, legend, testId]);
 
   const local = (e: React.PointerEvent) => {
     const r = e.currentTarget.getBoundingClientRect();

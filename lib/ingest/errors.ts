@@ -6,6 +6,7 @@
 export type IngestFileErrorCode =
   | 'empty-file'
   | 'no-data-rows'
+  | 'rejected-row'
   | 'binary-file'
   | 'invalid-encoding'
   | 'wrong-delimiter'

@@ -96,7 +96,7 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
         await insertRejects(catalogId, rejected.slice(0, 1000));
         const first = rejected[0];
         throw new IngestFileError(
-          'no-data-rows',
+          'rejected-row',
           `The file was rejected as a whole (policy: reject the file on any bad row): line ${first.line}: ${first.reason}`,
           { line: first.line },
         );

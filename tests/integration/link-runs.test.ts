@@ -184,30 +184,68 @@ describe('link runs through the API', () => {
   });
 });
 
-describe('a worker killed in the middle of a run', () => {
-  it('leaves no half-written run; the run is picked up again and finishes whole', async () => {
-    const t = await makeTeam('crash');
+describe('long runs: cancelled, or their worker killed', () => {
+  let t: Team;
+  let a: string;
+  let b: string;
+  const long = () => ({ catalogIds: [a, b], radius: { mode: 'fixed', arcsec: 400 }, velocity: { mode: 'ignore' }, linkMode: 'all', chanceTrials: 10, complexCap: 100_000 });
+
+  /** Waits until a worker has the run's job and is part-way through; returns that job's row. */
+  async function partWay(conn: mysql.Connection, runId: string) {
+    for (let i = 0; i < 400; i++) {
+      const [[job]] = (await conn.query("SELECT j.id, j.locked_by, j.progress FROM jobs j JOIN link_runs r ON r.job_id = j.id WHERE r.id = ? AND j.status = 'running'", [runId])) as unknown as [[{ id: number; locked_by: string; progress: number }?]];
+      if (job && job.progress > 0.1) return job;
+      await new Promise((res) => setTimeout(res, 50));
+    }
+    const seen = await t.viewer.json<{ run: { status: string; summary: unknown } }>('GET', `/api/link-runs/${runId}`);
+    throw new Error(`never caught the run part-way: ${JSON.stringify(seen.body.run).slice(0, 400)}`);
+  }
+
+  beforeAll(async () => {
+    t = await makeTeam('long');
     const r = lcg(9);
     const rows = (n: number) => Array.from({ length: n }, () => ({ l: r() * 40, b: (r() - 0.5) * 4, v: (r() - 0.5) * 100 }));
-    const a = await readyCatalog(t.editor, t.projectId, rows(40_000), 'Crash A', 'co');
-    const b = await readyCatalog(t.editor, t.projectId, rows(40_000), 'Crash B', 'ob');
-    const start = await t.editor.json<{ run: { id: string } }>('POST', `/api/projects/${t.projectId}/link-runs`, {
-      catalogIds: [a, b], radius: { mode: 'fixed', arcsec: 400 }, velocity: { mode: 'ignore' }, linkMode: 'all', chanceTrials: 10, complexCap: 100_000,
-    });
+    a = await readyCatalog(t.editor, t.projectId, rows(40_000), 'Long A', 'co');
+    b = await readyCatalog(t.editor, t.projectId, rows(40_000), 'Long B', 'ob');
+  }, 300_000);
+
+  it('stops a running run on request: cancelled, with nothing of it stored; viewers may not cancel', async () => {
+    const start = await t.editor.json<{ run: { id: string } }>('POST', `/api/projects/${t.projectId}/link-runs`, long());
     const runId = start.body.run.id;
     const conn = await mysql.createConnection(process.env.DATABASE_URL!);
     try {
-      // Wait until a worker has the job and is part-way through, then kill that worker outright.
-      let pid = 0;
-      for (let i = 0; i < 400 && !pid; i++) {
-        const [[job]] = (await conn.query("SELECT j.locked_by, j.progress FROM jobs j JOIN link_runs r ON r.job_id = j.id WHERE r.id = ? AND j.status = 'running'", [runId])) as unknown as [[{ locked_by: string; progress: number }?]];
-        if (job && job.progress > 0.1) pid = Number(job.locked_by.split(':').pop());
-        else await new Promise((res) => setTimeout(res, 50));
+      await partWay(conn, runId);
+      expect((await t.viewer.post(`/api/link-runs/${runId}/cancel`, {})).status).toBe(403);
+      expect((await t.outsider.post(`/api/link-runs/${runId}/cancel`, {})).status).toBe(404);
+      const cancel = await t.editor.json<{ run: { id: string } }>('POST', `/api/link-runs/${runId}/cancel`, {});
+      expect(cancel.status).toBe(202);
+
+      const run = await waitForRun(t.viewer, runId);
+      expect(run.status).toBe('cancelled');
+      expect(run.error).toMatch(/cancel/i);
+      expect(run.summary).toBeNull();
+      for (const table of ['links', 'complexes', 'complex_members']) {
+        const [[n]] = (await conn.query(`SELECT COUNT(*) AS n FROM ${table} WHERE run_id = ?`, [runId])) as unknown as [[{ n: number }]];
+        expect([table, Number(n.n)]).toEqual([table, 0]);
       }
-      if (!pid) {
-        const seen = await t.viewer.json<{ run: { status: string; summary: unknown } }>('GET', `/api/link-runs/${runId}`);
-        throw new Error(`never caught the run part-way: ${JSON.stringify(seen.body.run).slice(0, 400)}`);
-      }
+      const [[job]] = (await conn.query('SELECT j.status FROM jobs j JOIN link_runs r ON r.job_id = j.id WHERE r.id = ?', [runId])) as unknown as [[{ status: string }]];
+      expect(job.status).toBe('cancelled');
+      expect((await t.viewer.get(`/api/link-runs/${runId}/complexes`)).status).toBe(409);
+      expect((await t.viewer.get(`/api/link-runs/${runId}/export.csv?shape=links`)).status).toBe(409);
+      // A finished run cannot be cancelled again.
+      expect((await t.editor.post(`/api/link-runs/${runId}/cancel`, {})).status).toBe(409);
+    } finally {
+      await conn.end();
+    }
+  }, 300_000);
+
+  it('leaves no half-written run when its worker is killed; the run is picked up again and finishes whole', async () => {
+    const start = await t.editor.json<{ run: { id: string } }>('POST', `/api/projects/${t.projectId}/link-runs`, long());
+    const runId = start.body.run.id;
+    const conn = await mysql.createConnection(process.env.DATABASE_URL!);
+    try {
+      // Once a worker is part-way through the job, kill that worker outright.
+      const pid = Number((await partWay(conn, runId)).locked_by.split(':').pop());
       process.kill(pid, 'SIGKILL');
       const mid = await t.viewer.json<{ run: { status: string; summary: unknown } }>('GET', `/api/link-runs/${runId}`);
       expect(mid.body.run.status).toBe('running');

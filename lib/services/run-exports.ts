@@ -44,10 +44,9 @@ const col = (name: string, sql: string, kind: CsvSqlKind, extra: Partial<Votable
 });
 const intCol = (name: string, sql: string, extra: Partial<VotableField> = {}): Column => ({ field: { name, datatype: 'int', ...extra }, sql, kind: 'number' });
 
-/** The key range of `key` in `from`, or nothing when it holds no rows. */
-async function segment(from: string, values: unknown[], key: string): Promise<Segment[]> {
-  const [[r]] = await pool().query<RowDataPacket[]>(`SELECT MIN(${key}) AS lo, MAX(${key}) AS hi FROM ${from}`, values);
-  return r.lo === null ? [] : [{ from, values, key, lo: Number(r.lo), hi: Number(r.hi) }];
+/** The segment of `from` between the keys `lo` and `hi`, or nothing when there are no rows. */
+function segment(from: string, values: unknown[], key: string, range: RowDataPacket): Segment[] {
+  return range.lo === null ? [] : [{ from, values, key, lo: Number(range.lo), hi: Number(range.hi) }];
 }
 
 const sourceColumns = (alias: 'a' | 'b'): Column[] => [
@@ -72,7 +71,7 @@ async function linksTable(runId: string): Promise<Table> {
     ...sourceColumns('b'),
   ];
   const [pairs] = await pool().query<RowDataPacket[]>(
-    'SELECT catalog_a, catalog_b, MIN(id) AS lo FROM links WHERE run_id = ? GROUP BY catalog_a, catalog_b ORDER BY lo',
+    'SELECT catalog_a, catalog_b, MIN(id) AS lo, MAX(id) AS hi FROM links WHERE run_id = ? GROUP BY catalog_a, catalog_b ORDER BY lo',
     [runId],
   );
   const segments: Segment[] = [];
@@ -80,7 +79,7 @@ async function linksTable(runId: string): Promise<Table> {
     // Both catalogs' rows are joined on their primary keys; links are read in id ranges.
     const from = `links l JOIN \`${rowsTableName(p.catalog_a)}\` a ON a.\`row\` = l.row_a JOIN \`${rowsTableName(p.catalog_b)}\` b ON b.\`row\` = l.row_b
       WHERE l.run_id = ? AND l.catalog_a = ? AND l.catalog_b = ?`;
-    segments.push(...(await segment(from, [runId, p.catalog_a, p.catalog_b], 'l.id')));
+    segments.push(...segment(from, [runId, p.catalog_a, p.catalog_b], 'l.id', p));
   }
   return { columns, segments, chunkRows: 10_000 };
 }
@@ -107,7 +106,8 @@ async function complexesTable(runId: string): Promise<Table> {
     col('review_note', 'c.review_note', 'text'),
     col('reviewed_at', 'c.reviewed_at', 'time'),
   ];
-  return { columns, segments: await segment('complexes c WHERE c.run_id = ?', [runId], 'c.id'), chunkRows: 2_000 };
+  const [[range]] = await pool().query<RowDataPacket[]>('SELECT MIN(id) AS lo, MAX(id) AS hi FROM complexes WHERE run_id = ?', [runId]);
+  return { columns, segments: segment('complexes c WHERE c.run_id = ?', [runId], 'c.id', range), chunkRows: 2_000 };
 }
 
 /** Every source of the run's catalogs with its complex (empty when it has no link). */
@@ -117,7 +117,8 @@ async function sourcesTable(runId: string, catalogIds: string[]): Promise<Table>
     // The one-row `k` carries the catalog id into every line (rowsTableName checked it is a UUID).
     const from = `\`${rowsTableName(cat)}\` s JOIN (SELECT '${cat}' AS id) k
       LEFT JOIN complex_members m ON m.run_id = ? AND m.catalog_id = k.id AND m.\`row\` = s.\`row\` WHERE TRUE`;
-    segments.push(...(await segment(from, [runId], 's.`row`')));
+    const [[range]] = await pool().query<RowDataPacket[]>(`SELECT MIN(\`row\`) AS lo, MAX(\`row\`) AS hi FROM \`${rowsTableName(cat)}\``);
+    segments.push(...segment(from, [runId], 's.`row`', range));
   }
   const columns: Column[] = [
     col('catalog_id', 'k.id', 'raw', { ucd: 'meta.id' }),

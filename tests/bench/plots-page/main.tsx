@@ -4,8 +4,7 @@
  * endpoint sends them: a thin Galactic disc with a rough l–v pattern (invented, deterministic).
  */
 import { createRoot } from 'react-dom/client';
-import { LvPlot } from '@/components/plots/lv-plot';
-import { SkyPlot } from '@/components/plots/sky-plot';
+import { CatalogPlots } from '@/components/plots/catalog-plots';
 
 const n = Number(new URLSearchParams(location.search).get('points') ?? 1_000_000);
 let seed = 7;
@@ -25,7 +24,6 @@ document.addEventListener('pointerup', (e) => w.pointerUps.push(e.timeStamp), tr
 
 createRoot(document.getElementById('root')!).render(
   <main>
-    <SkyPlot points={points} kind="co" name="bench" />
-    <LvPlot points={points} kind="co" name="bench" />
+    <CatalogPlots points={points} kind="co" name="bench" />
   </main>,
 );

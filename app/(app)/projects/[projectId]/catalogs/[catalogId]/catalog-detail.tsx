@@ -6,8 +6,7 @@ import { useRef, useState } from 'react';
 import { api } from '@/lib/api-client';
 import type { Mapping } from '@/lib/ingest/mapping';
 import { tracerStyle } from '@/lib/tracers';
-import { LvPlot } from '@/components/plots/lv-plot';
-import { SkyPlot } from '@/components/plots/sky-plot';
+import { CatalogPlots } from '@/components/plots/catalog-plots';
 import { CatalogRowsTable } from '@/components/tables/catalog-rows-table';
 import {
   CatalogStatusCell,
@@ -315,10 +314,7 @@ export function CatalogDetail({
               points.data.length === 0 ? (
                 <EmptyState title="No rows to plot" />
               ) : (
-                <div className="space-y-6">
-                  <SkyPlot points={points.data} kind={c.kind} name={c.name} />
-                  <LvPlot points={points.data} kind={c.kind} name={c.name} />
-                </div>
+                <CatalogPlots points={points.data} kind={c.kind} name={c.name} />
               )
             ) : (
               !points.error && (

@@ -49,35 +49,41 @@ export function column(points: Float32Array, offset: 1 | 2): Float32Array {
   return out;
 }
 
+const V_AXIS: AxisSpec = { symbol: 'v', label: 'LSR velocity v', unit: 'km/s' };
+
 /**
- * The catalog on the sky in Galactic coordinates: l grows to the left, as the Milky Way is
- * drawn, b upwards. `points` are the interleaved (l, b, v) triples of the `/points` endpoint.
+ * A catalog's two plots from the interleaved (l, b, v) triples of the `/points` endpoint: the
+ * sky in Galactic coordinates (l growing to the left, as the Milky Way is drawn; b upwards) and
+ * the longitude–velocity diagram (v_LSR, radio convention; rows without a velocity are left
+ * out). The plotted longitudes are computed once for both.
  */
-export function SkyPlot({
-  points,
-  kind,
-  name,
-}: {
-  points: Float32Array;
-  kind: string;
-  name: string;
-}) {
+export function CatalogPlots({ points, kind, name }: { points: Float32Array; kind: string; name: string }) {
   const { lDeg, axis } = useMemo(() => plottedLongitudes(points), [points]);
   const bDeg = useMemo(() => column(points, 1), [points]);
+  const vKms = useMemo(() => column(points, 2), [points]);
   const t = tracerStyle(kind);
+  const plots = [
+    { ys: bDeg, y: B_AXIS, title: `Sky plot of ${name}`, stem: 'sky', aspect: 0.4, testId: 'sky-plot' },
+    { ys: vKms, y: V_AXIS, title: `Longitude–velocity diagram of ${name}`, stem: 'lv', aspect: 0.5, testId: 'lv-plot' },
+  ];
   return (
-    <ScatterCanvas
-      xs={lDeg}
-      ys={bDeg}
-      x={axis}
-      y={B_AXIS}
-      colour={t.colour}
-      shape={t.shape}
-      legend={`${name} (${t.label})`}
-      title={`Sky plot of ${name}`}
-      fileStem={`${name}-sky`}
-      aspect={0.4}
-      testId="sky-plot"
-    />
+    <div className="space-y-6">
+      {plots.map((p) => (
+        <ScatterCanvas
+          key={p.testId}
+          xs={lDeg}
+          ys={p.ys}
+          x={axis}
+          y={p.y}
+          colour={t.colour}
+          shape={t.shape}
+          legend={`${name} (${t.label})`}
+          title={p.title}
+          fileStem={`${name}-${p.stem}`}
+          aspect={p.aspect}
+          testId={p.testId}
+        />
+      ))}
+    </div>
   );
 }

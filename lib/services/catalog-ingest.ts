@@ -16,30 +16,32 @@ import { createLoadTable, dropRowsTables, finaliseLoadTable, ROW_COLUMNS, rowsTa
 const MAX_STORED_REJECTS = 100_000;
 
 
-/**
- * Stores a batch of accepted rows in the catalog's load table.
- */
-async function insertRows(catalogId: string, c: CanonicalColumns) {
-  if (!c.count) return;
-  const parts: string[] = new Array(c.count);
+/** Rows parsed and checked per batch: small, so their cells die young and cost little to collect. */
+const PARSE_BATCH_ROWS = 2_000;
+/** Rows per LOAD DATA statement: large, so MariaDB spends its time storing, not starting. */
+const LOAD_BATCH_ROWS = 20_000;
+
+/** Appends the TSV lines (see bulk-load.ts) of a batch of accepted rows to `out`. */
+function appendTsvLines(c: CanonicalColumns, out: string[]) {
   for (let i = 0; i < c.count; i++) {
-    parts[i] = [
-      c.row[i],
-      c.line[i],
-      tsvCell(c.name[i] ? c.name[i]!.slice(0, 128) : null),
-      c.lDeg[i],
-      c.bDeg[i],
-      tsvCell(c.vLsrKms[i]),
-      tsvCell(c.radiusArcsec[i]),
-      tsvCell(c.posErrArcsec[i]),
-      tsvCell(c.vErrKms[i]),
-      tsvCell(c.sigmaVKms[i]),
-      tsvCell(c.distKpc[i]),
-      tsvCell(c.distErrKpc[i]),
-      tsvCell(JSON.stringify(c.original[i])),
-    ].join('\t');
+    out.push(
+      [
+        c.row[i],
+        c.line[i],
+        tsvCell(c.name[i] ? c.name[i]!.slice(0, 128) : null),
+        c.lDeg[i],
+        c.bDeg[i],
+        tsvCell(c.vLsrKms[i]),
+        tsvCell(c.radiusArcsec[i]),
+        tsvCell(c.posErrArcsec[i]),
+        tsvCell(c.vErrKms[i]),
+        tsvCell(c.sigmaVKms[i]),
+        tsvCell(c.distKpc[i]),
+        tsvCell(c.distErrKpc[i]),
+        tsvCell(JSON.stringify(c.original[i])),
+      ].join('\t'),
+    );
   }
-  await loadTsv(`\`${rowsTableName(catalogId, true)}\``, ROW_COLUMNS, parts);
 }
 
 async function insertRejects(catalogId: string, rejected: Rejection[]) {
@@ -80,15 +82,21 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
 
   const size = fs.statSync(c.filePath).size || 1;
   const counter = byteCounter();
-  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter), { batchSize: 20_000 });
+  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter), { batchSize: PARSE_BATCH_ROWS });
   const normalise = makeBatchNormaliser(table.header, c.mapping as Mapping);
   const pointsTmp = `${pointsPath(catalogId)}.tmp`;
   const points = fs.createWriteStream(pointsTmp);
   let rowCount = 0;
   let rejectedCount = 0;
   let lastReport = 0;
-  // The database stores batch k while JavaScript parses batch k + 1: both cores stay busy.
+  // The database stores one LOAD batch while JavaScript parses the next: both cores stay busy.
   let storing: Promise<void> = Promise.resolve();
+  let pending: string[] = [];
+  const store = async () => {
+    await storing;
+    storing = loadTsv(`\`${rowsTableName(catalogId, true)}\``, ROW_COLUMNS, pending);
+    pending = [];
+  };
   try {
     for await (const batch of table.batches) {
       const { columns, rejected } = normalise(batch);
@@ -103,8 +111,8 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
       }
       if (rejectedCount < MAX_STORED_REJECTS) await insertRejects(catalogId, rejected.slice(0, MAX_STORED_REJECTS - rejectedCount));
       rejectedCount += rejected.length;
-      await storing;
-      storing = insertRows(catalogId, columns);
+      appendTsvLines(columns, pending);
+      if (pending.length >= LOAD_BATCH_ROWS) await store();
       rowCount += columns.count;
       const f32 = new Float32Array(columns.count * 3);
       for (let i = 0; i < columns.count; i++) {
@@ -121,6 +129,7 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
         await progress(fraction);
       }
     }
+    await store();
     await storing;
     await new Promise<void>((resolve, reject) => points.end((err?: Error | null) => (err ? reject(err) : resolve())));
     if (rowCount === 0) {

@@ -4,7 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
 import { formatSexagesimal } from '@/lib/astro/coordinates';
 import { api, ApiError } from '@/lib/api-client';
-import { readPastedRows, type CoordinateFrame, type PastedRow } from '@/lib/services/tools';
+import { readPastedRows, type CoordinateFrame, type PastedRow } from '@/lib/calculators';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { ErrorNote } from '@/components/ui/panel';

@@ -11,7 +11,7 @@ import {
   type ToolCurveName,
   type ToolCurvePreset,
   type ToolCurveUsed,
-} from '@/lib/services/tools';
+} from '@/lib/calculators';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { ErrorNote } from '@/components/ui/panel';

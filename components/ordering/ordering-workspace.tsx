@@ -5,7 +5,7 @@ import { useMemo, useState } from 'react';
 import { ErrorNote } from '@/components/ui/panel';
 import { api } from '@/lib/api-client';
 import { ARM_MODEL_PRESETS } from '@/lib/astro/arms';
-import { TOOL_CURVES, TOOL_CURVE_PRESETS } from '@/lib/services/tools';
+import { TOOL_CURVES, TOOL_CURVE_PRESETS } from '@/lib/calculators';
 import { AnalysesPanel, useAnalyses } from './analyses-panel';
 import { AnalysisView } from './analysis-view';
 import { SettingsPanel, projectKey } from './settings-panel';

@@ -6,7 +6,7 @@
  */
 import { armPoints, type ArmSpec } from '@/lib/astro/arms';
 import type { RotationCurve } from '@/lib/astro/rotation-curves';
-import { toolCurve, type ToolCurveName } from '@/lib/services/tools';
+import { toolCurve, type ToolCurveName } from '@/lib/calculators';
 import type { ArmPresets, ArmsChoice, CustomArmJson, OrderingDefaults } from './types';
 
 /** One custom arm row: name, R_ref (kpc), β_ref, pitch ψ, β_min and β_max (deg), as typed. */

@@ -8,7 +8,7 @@ import { SelectField, TextField } from '@/components/ui/field';
 import { ErrorNote, Panel } from '@/components/ui/panel';
 import { api } from '@/lib/api-client';
 import { corotationRadiusKpc } from '@/lib/astro/pattern-speed';
-import type { ToolCurveName } from '@/lib/services/tools';
+import type { ToolCurveName } from '@/lib/calculators';
 import { ArmsEditor } from './arms-editor';
 import { FaceOnMap } from './face-on-map';
 import { armSpecToRow, roundKms, type CheckedSettings, type SettingsDraft } from './settings-model';

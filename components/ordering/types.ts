@@ -5,7 +5,7 @@
  * are signed: positive ahead of the arm ridge in the sense of Galactic rotation.
  */
 import type { ArmSpec } from '@/lib/astro/arms';
-import type { ToolCurveName } from '@/lib/services/tools';
+import type { ToolCurveName } from '@/lib/calculators';
 import type { OrderingResult } from '@/lib/ordering/types';
 
 export type AnalysisStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';

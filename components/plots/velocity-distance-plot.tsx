@@ -2,7 +2,7 @@
 
 import { useMemo, useRef } from 'react';
 import { vLsrAtKms } from '@/lib/astro/kinematic-distance';
-import { toolCurve, type ToolCurveName } from '@/lib/services/tools';
+import { toolCurve, type ToolCurveName } from '@/lib/calculators';
 import { Button } from '@/components/ui/button';
 import { downloadText } from '@/components/forms/calculator-results';
 

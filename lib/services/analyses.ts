@@ -10,7 +10,7 @@ import { HttpError, notFound } from '@/lib/http/errors';
 import { runOrderingAnalysis, type OrderingComplex, type OrderingMember, type OrderingSettings } from '@/lib/ordering';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
-import { toolCurve } from './tools';
+import { toolCurve } from '@/lib/calculators';
 
 const customArmSchema = z.object({
   name: z.string().trim().min(1).max(60),

@@ -2,7 +2,7 @@ import { csvLine } from '@/lib/export/csv';
 import { HttpError } from '@/lib/http/errors';
 import type { OrderingResult } from '@/lib/ordering';
 import { analysisSchema, armsOf, getAnalysis } from './analyses';
-import { toolCurve } from './tools';
+import { toolCurve } from '@/lib/calculators';
 import pkg from '@/package.json';
 
 async function doneResult(analysisId: string) {

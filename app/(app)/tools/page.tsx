@@ -1,7 +1,7 @@
 import { ConvertCalculator } from '@/components/forms/calculator-convert';
 import { DistanceCalculator } from '@/components/forms/calculator-distance';
 import { PageHeader, Panel } from '@/components/ui/panel';
-import { TOOL_CURVE_PRESETS } from '@/lib/services/tools';
+import { TOOL_CURVE_PRESETS } from '@/lib/calculators';
 
 export const metadata = { title: 'Calculators' };
 

@@ -1,6 +1,6 @@
 import { requireUser } from '@/lib/auth/access';
 import { json, jsonBody, route } from '@/lib/http/handler';
-import { convertPoints, convertRequestSchema } from '@/lib/services/tools';
+import { convertPoints, convertRequestSchema } from '@/lib/calculators';
 
 /** J2000 / ICRS ↔ Galactic for up to 100 000 points (API.md, `POST /api/tools/convert`). */
 export const POST = route(async (req) => {

@@ -5,7 +5,8 @@ import './globals.css';
 
 export const metadata: Metadata = {
   title: { default: 'Lanewise', template: '%s · Lanewise' },
-  description: 'Link star-formation tracers across surveys and measure their ordering across spiral arms.',
+  description:
+    'Link star-formation tracers across surveys and measure their ordering across spiral arms.',
 };
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {

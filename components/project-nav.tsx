@@ -17,8 +17,13 @@ export function ProjectNav({ projectId, projectName }: { projectId: string; proj
   const path = usePathname();
   const base = `/projects/${projectId}`;
   return (
-    <nav aria-label="Project" className="w-56 shrink-0 border-r border-rule bg-paper-deep/40 px-3 py-5">
-      <p className="mb-4 px-2 text-xs font-semibold uppercase tracking-wider text-ink-soft">{projectName}</p>
+    <nav
+      aria-label="Project"
+      className="w-56 shrink-0 border-r border-rule bg-paper-deep/40 px-3 py-5"
+    >
+      <p className="mb-4 px-2 text-xs font-semibold uppercase tracking-wider text-ink-soft">
+        {projectName}
+      </p>
       <ul className="space-y-0.5 text-sm">
         {SECTIONS.map(([suffix, label]) => {
           const href = base + suffix;

@@ -15,7 +15,10 @@ import {
 } from 'drizzle-orm/mysql-core';
 
 const id = (name = 'id') => varchar(name, { length: 36 });
-const createdAt = () => timestamp('created_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
+const createdAt = () =>
+  timestamp('created_at', { fsp: 3 })
+    .notNull()
+    .default(sql`CURRENT_TIMESTAMP(3)`);
 
 export const SITE_ROLES = ['admin', 'member'] as const;
 export const PROJECT_ROLES = ['owner', 'editor', 'viewer'] as const;
@@ -49,7 +52,9 @@ export const signInAttempts = mysqlTable(
     id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
     email: varchar('email', { length: 254 }).notNull(),
     succeeded: boolean('succeeded').notNull(),
-    at: timestamp('at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    at: timestamp('at', { fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [index('sign_in_attempts_email_at').on(t.email, t.at)],
 );
@@ -129,7 +134,9 @@ export const auditLog = mysqlTable(
     action: varchar('action', { length: 64 }).notNull(),
     subject: varchar('subject', { length: 128 }),
     detail: json('detail').$type<Record<string, unknown>>(),
-    at: timestamp('at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    at: timestamp('at', { fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [index('audit_project_at').on(t.projectId, t.at)],
 );
@@ -175,7 +182,9 @@ export const catalogs = mysqlTable(
     filePath: varchar('file_path', { length: 500 }).notNull(),
     fileBytes: bigint('file_bytes', { mode: 'number', unsigned: true }).notNull(),
     format: varchar('format', { length: 16 }),
-    policy: mysqlEnum('policy', ['skip-bad-rows', 'reject-file']).notNull().default('skip-bad-rows'),
+    policy: mysqlEnum('policy', ['skip-bad-rows', 'reject-file'])
+      .notNull()
+      .default('skip-bad-rows'),
     mapping: json('mapping').$type<Record<string, unknown>>(),
     columns: json('columns').$type<string[]>(),
     jobId: bigint('job_id', { mode: 'number', unsigned: true }),
@@ -244,7 +253,10 @@ export const links = mysqlTable(
     reliability: double('reliability'),
     complexId: int('complex_id').notNull(),
   },
-  (t) => [primaryKey({ columns: [t.runId, t.id] }), index('links_complex').on(t.runId, t.complexId)],
+  (t) => [
+    primaryKey({ columns: [t.runId, t.id] }),
+    index('links_complex').on(t.runId, t.complexId),
+  ],
 );
 
 /** A complex: the linked sources that belong together, with what the tables sort on. */
@@ -337,7 +349,9 @@ export const distanceOverrides = mysqlTable(
     distKpc: double('dist_kpc').notNull(),
     note: text('note'),
     setBy: id('set_by').references(() => users.id, { onDelete: 'set null' }),
-    setAt: timestamp('set_at', { fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    setAt: timestamp('set_at', { fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [primaryKey({ columns: [t.runId, t.complexId] })],
 );

@@ -14,14 +14,22 @@ export async function api<T>(path: string, init?: RequestInit & { json?: unknown
   const { json, ...rest } = init ?? {};
   const res = await fetch(path, {
     ...rest,
-    headers: { ...(json !== undefined ? { 'content-type': 'application/json' } : {}), ...rest.headers },
+    headers: {
+      ...(json !== undefined ? { 'content-type': 'application/json' } : {}),
+      ...rest.headers,
+    },
     body: json !== undefined ? JSON.stringify(json) : rest.body,
   });
   if (res.status === 204) return undefined as T;
   const body = await res.json().catch(() => null);
   if (!res.ok) {
     const err = body?.error;
-    throw new ApiError(res.status, err?.code ?? 'error', err?.message ?? `Request failed (${res.status}).`, err?.details);
+    throw new ApiError(
+      res.status,
+      err?.code ?? 'error',
+      err?.message ?? `Request failed (${res.status}).`,
+      err?.details,
+    );
   }
   return body as T;
 }

@@ -1,7 +1,14 @@
 // `npm run bench:ingest` (and other benchmarks that need MariaDB): starts a private database
 // of its own (test slot 3, reset each time), migrates, and runs the benchmark script with tsx.
 import { resetDb } from '../db/server.mjs';
-import { bin, ensureNpmPackages, migrate, profileSettings, runStep, startDatabase } from './setup.mjs';
+import {
+  bin,
+  ensureNpmPackages,
+  migrate,
+  profileSettings,
+  runStep,
+  startDatabase,
+} from './setup.mjs';
 
 process.env.LANEWISE_TEST_SLOT = process.env.LANEWISE_TEST_SLOT ?? '3';
 const [script, ...args] = process.argv.slice(2);

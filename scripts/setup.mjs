@@ -21,7 +21,9 @@ export function ensureNpmPackages() {
     (fs.existsSync(lock) && fs.statSync(lock).mtimeMs > fs.statSync(marker).mtimeMs + 1000);
   if (!stale) return;
   console.log('[setup] installing npm packages …');
-  const args = fs.existsSync(lock) ? ['ci', '--no-audit', '--no-fund'] : ['install', '--no-audit', '--no-fund'];
+  const args = fs.existsSync(lock)
+    ? ['ci', '--no-audit', '--no-fund']
+    : ['install', '--no-audit', '--no-fund'];
   execFileSync('npm', args, { cwd: root, stdio: 'inherit' });
 }
 
@@ -34,7 +36,10 @@ export function ensureChromium() {
   console.log('[setup] installing chromium with apt-get …');
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   execFileSync('apt-get', ['update'], { stdio: 'inherit', env });
-  execFileSync('apt-get', ['install', '-y', '--no-install-recommends', 'chromium'], { stdio: 'inherit', env });
+  execFileSync('apt-get', ['install', '-y', '--no-install-recommends', 'chromium'], {
+    stdio: 'inherit',
+    env,
+  });
   return '/usr/bin/chromium';
 }
 
@@ -43,7 +48,11 @@ function localSecret(dir) {
   const file = path.join(dir, 'secrets.json');
   if (!fs.existsSync(file)) {
     fs.mkdirSync(dir, { recursive: true });
-    fs.writeFileSync(file, JSON.stringify({ NEXTAUTH_SECRET: crypto.randomBytes(32).toString('base64url') }), { mode: 0o600 });
+    fs.writeFileSync(
+      file,
+      JSON.stringify({ NEXTAUTH_SECRET: crypto.randomBytes(32).toString('base64url') }),
+      { mode: 0o600 },
+    );
   }
   return JSON.parse(fs.readFileSync(file, 'utf8'));
 }
@@ -53,8 +62,14 @@ export function profileSettings(profile) {
   const isTest = profile === 'test';
   const db = dbProfile(profile);
   const slot = isTest ? Number(process.env.LANEWISE_TEST_SLOT ?? 0) : 0;
-  const appPort = Number(isTest ? (process.env.LANEWISE_TEST_PORT ?? 3100 + slot * 10) : (process.env.PORT ?? 3000));
-  const mailPort = Number(isTest ? (process.env.LANEWISE_TEST_MAIL_PORT ?? 2625 + slot * 10) : (process.env.MAIL_CATCHER_PORT ?? 2525));
+  const appPort = Number(
+    isTest ? (process.env.LANEWISE_TEST_PORT ?? 3100 + slot * 10) : (process.env.PORT ?? 3000),
+  );
+  const mailPort = Number(
+    isTest
+      ? (process.env.LANEWISE_TEST_MAIL_PORT ?? 2625 + slot * 10)
+      : (process.env.MAIL_CATCHER_PORT ?? 2525),
+  );
   const url = `http://127.0.0.1:${appPort}`;
   const secrets = localSecret(db.dir);
   const env = {
@@ -138,7 +153,12 @@ let stopping = false;
  * service that dies is started again, as a process manager would in production.
  */
 export function startService(name, cmd, args, env, { restart = false } = {}) {
-  const child = spawn(cmd, args, { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
+  const child = spawn(cmd, args, {
+    cwd: root,
+    env,
+    stdio: ['ignore', 'pipe', 'pipe'],
+    detached: true,
+  });
   const prefix = (stream, out) => {
     let buf = '';
     stream.on('data', (d) => {
@@ -210,7 +230,9 @@ export async function startAppServices(settings) {
   // so a signal to the pid a worker records reaches the worker itself.
   startService('mail', process.execPath, ['--import', 'tsx', 'lib/mail/catcher-main.ts'], env);
   await waitForPort(mailPort);
-  startService('worker', process.execPath, ['--import', 'tsx', 'lib/jobs/main.ts'], env, { restart: true });
+  startService('worker', process.execPath, ['--import', 'tsx', 'lib/jobs/main.ts'], env, {
+    restart: true,
+  });
   startService('web', bin('next'), ['start', '-H', '127.0.0.1', '-p', String(appPort)], env);
   await waitForHttp(`${url}/api/health`);
 }

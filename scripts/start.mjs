@@ -1,7 +1,14 @@
 // `npm start`: from a fresh clone to a running, seeded Lanewise on http://127.0.0.1:3000.
 import {
-  bin, buildIfStale, ensureNpmPackages, migrate, profileSettings, runStep, startAppServices,
-  startDatabase, stopServices,
+  bin,
+  buildIfStale,
+  ensureNpmPackages,
+  migrate,
+  profileSettings,
+  runStep,
+  startAppServices,
+  startDatabase,
+  stopServices,
 } from './setup.mjs';
 
 async function main() {
@@ -9,7 +16,8 @@ async function main() {
   await startDatabase('dev');
   const settings = profileSettings('dev');
   migrate(settings.env);
-  if (runStep('seed', bin('tsx'), ['seed/seed.ts'], settings.env) !== 0) throw new Error('seeding failed');
+  if (runStep('seed', bin('tsx'), ['seed/seed.ts'], settings.env) !== 0)
+    throw new Error('seeding failed');
   buildIfStale(settings.env);
   await startAppServices(settings);
   console.log(`

@@ -1,12 +1,22 @@
 // `npm test`: the same set-up as `npm start` on its own ports and data directory (never the
-// demo data), then typecheck, lint, and every test: unit, integration against the real MariaDB
+// demo data), then typecheck, lint, formatting, and every test: unit, integration against the real MariaDB
 // and the running app, end-to-end in Debian's Chromium. Stops what it started.
 import fs from 'node:fs';
 import path from 'node:path';
 import { stopDb, resetDb } from '../db/server.mjs';
 import {
-  bin, buildIfStale, ensureChromium, ensureNpmPackages, migrate, profileSettings, root, runStep, runStepAsync,
-  startAppServices, startDatabase, stopServices,
+  bin,
+  buildIfStale,
+  ensureChromium,
+  ensureNpmPackages,
+  migrate,
+  profileSettings,
+  root,
+  runStep,
+  runStepAsync,
+  startAppServices,
+  startDatabase,
+  stopServices,
 } from './setup.mjs';
 
 async function main() {
@@ -23,12 +33,19 @@ async function main() {
   const failures = [];
   if (runStep('typecheck', bin('tsc'), ['--noEmit'], env) !== 0) failures.push('typecheck');
   if (runStep('lint', bin('eslint'), ['.', '--max-warnings=0'], env) !== 0) failures.push('lint');
+  if (runStep('format', bin('prettier'), ['--check', '.'], env) !== 0)
+    failures.push('format (npm run format fixes it)');
   buildIfStale(env);
   await startAppServices(settings);
 
   const report = path.join(settings.db.dir, 'vitest.json');
   const only = process.argv.slice(2);
-  const status = await runStepAsync('vitest', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile=${report}`, ...only], env);
+  const status = await runStepAsync(
+    'vitest',
+    bin('vitest'),
+    ['run', '--reporter=default', '--reporter=json', `--outputFile=${report}`, ...only],
+    env,
+  );
   if (status !== 0) failures.push('tests');
   if (fs.existsSync(report)) {
     const r = JSON.parse(fs.readFileSync(report, 'utf8'));

@@ -5,7 +5,11 @@ export const DEMO_CATALOGS = [
     name: 'HRG CO clouds (J=1–0)',
     kind: 'co',
     mapping: {
-      position: { system: 'galactic', lon: { column: 'l_deg', unit: 'deg' }, lat: { column: 'b_deg', unit: 'deg' } },
+      position: {
+        system: 'galactic',
+        lon: { column: 'l_deg', unit: 'deg' },
+        lat: { column: 'b_deg', unit: 'deg' },
+      },
       velocity: { column: 'v_lsr_kms', unit: 'km/s', frame: 'lsr', convention: 'radio' },
       lineWidth: { column: 'sigma_v', unit: 'km/s', kind: 'sigma' },
       size: { column: 'radius_arcsec', unit: 'arcsec', kind: 'radius' },
@@ -17,7 +21,11 @@ export const DEMO_CATALOGS = [
     name: 'HRG HI clouds (21 cm)',
     kind: 'hi',
     mapping: {
-      position: { system: 'galactic', lon: { column: 'GLON', unit: 'deg' }, lat: { column: 'GLAT', unit: 'deg' } },
+      position: {
+        system: 'galactic',
+        lon: { column: 'GLON', unit: 'deg' },
+        lat: { column: 'GLAT', unit: 'deg' },
+      },
       velocity: { column: 'VLSR', unit: 'km/s', frame: 'lsr', convention: 'radio' },
       lineWidth: { column: 'FWHM_KMS', unit: 'km/s', kind: 'fwhm' },
       size: { column: 'SIZE_ARCMIN', unit: 'arcmin', kind: 'diameter' },
@@ -29,7 +37,11 @@ export const DEMO_CATALOGS = [
     name: 'HRG HII regions (recombination lines)',
     kind: 'hii',
     mapping: {
-      position: { system: 'equatorial', lon: { column: 'RA_J2000', unit: 'sexagesimal' }, lat: { column: 'DEC_J2000', unit: 'sexagesimal' } },
+      position: {
+        system: 'equatorial',
+        lon: { column: 'RA_J2000', unit: 'sexagesimal' },
+        lat: { column: 'DEC_J2000', unit: 'sexagesimal' },
+      },
       velocity: { column: 'V_HEL_OPT', unit: 'km/s', frame: 'heliocentric', convention: 'optical' },
       velocityError: { column: 'E_V_HEL', unit: 'km/s' },
       lineWidth: { column: 'RRL_FWHM', unit: 'km/s', kind: 'fwhm' },
@@ -42,7 +54,11 @@ export const DEMO_CATALOGS = [
     name: 'HRG OB associations',
     kind: 'ob',
     mapping: {
-      position: { system: 'equatorial', lon: { column: 'ra', unit: 'deg' }, lat: { column: 'dec', unit: 'deg' } },
+      position: {
+        system: 'equatorial',
+        lon: { column: 'ra', unit: 'deg' },
+        lat: { column: 'dec', unit: 'deg' },
+      },
       velocity: { column: 'vlsr', unit: 'km/s', frame: 'lsr', convention: 'radio' },
       velocityError: { column: 'vlsr_err', unit: 'km/s' },
       distance: { column: 'dist', unit: 'kpc' },

@@ -26,22 +26,35 @@ async function seedCatalogs(projectId: string, editorId: string) {
     await writeDemoFiles(galaxy, dir);
   }
   for (const c of DEMO_CATALOGS) {
-    const [existing] = await db.select({ id: catalogs.id, status: catalogs.status }).from(catalogs).where(and(eq(catalogs.projectId, projectId), eq(catalogs.name, c.name)));
+    const [existing] = await db
+      .select({ id: catalogs.id, status: catalogs.status })
+      .from(catalogs)
+      .where(and(eq(catalogs.projectId, projectId), eq(catalogs.name, c.name)));
     if (existing?.status === 'ready') continue;
     const form = new FormData();
     form.set('file', await fs.openAsBlob(path.join(dir, c.file)), c.file);
     form.set('name', c.name);
     form.set('kind', c.kind);
     form.set('mapping', JSON.stringify(c.mapping));
-    await createCatalog(new Request('http://seed.local/upload', { method: 'POST', body: form }), projectId, editorId);
+    await createCatalog(
+      new Request('http://seed.local/upload', { method: 'POST', body: form }),
+      projectId,
+      editorId,
+    );
   }
   await drainJobs();
 }
 
 async function seedRun(projectId: string, editorId: string) {
-  const [done] = await db.select({ id: linkRuns.id }).from(linkRuns).where(and(eq(linkRuns.projectId, projectId), eq(linkRuns.status, 'done')));
+  const [done] = await db
+    .select({ id: linkRuns.id })
+    .from(linkRuns)
+    .where(and(eq(linkRuns.projectId, projectId), eq(linkRuns.status, 'done')));
   if (done) return done.id;
-  const cats = await db.select({ id: catalogs.id, name: catalogs.name }).from(catalogs).where(and(eq(catalogs.projectId, projectId), eq(catalogs.status, 'ready')));
+  const cats = await db
+    .select({ id: catalogs.id, name: catalogs.name })
+    .from(catalogs)
+    .where(and(eq(catalogs.projectId, projectId), eq(catalogs.status, 'ready')));
   const ordered = DEMO_CATALOGS.map((d) => cats.find((c) => c.name === d.name)!.id);
   const run = await startLinkRun(
     projectId,
@@ -57,7 +70,10 @@ async function seedRun(projectId: string, editorId: string) {
   );
   await drainJobs();
   // A few reviews, as the team would leave them.
-  const page = await complexesPage(run.id, complexesQuerySchema.parse({ sort: 'size', dir: 'desc', pageSize: 6 }));
+  const page = await complexesPage(
+    run.id,
+    complexesQuerySchema.parse({ sort: 'size', dir: 'desc', pageSize: 6 }),
+  );
   const verdicts = [
     ['accepted', 'CO, HII and OB members agree in velocity; a clear star-forming complex.'],
     ['accepted', 'Compact; the HII region sits on the CO peak.'],
@@ -66,7 +82,10 @@ async function seedRun(projectId: string, editorId: string) {
     ['rejected', 'Chance alignment along a crowded sight line.'],
   ] as const;
   for (let i = 0; i < Math.min(verdicts.length, page.complexes.length); i++) {
-    await reviewComplex(run.id, Number(page.complexes[i].id), editorId, { review: verdicts[i][0], note: verdicts[i][1] });
+    await reviewComplex(run.id, Number(page.complexes[i].id), editorId, {
+      review: verdicts[i][0],
+      note: verdicts[i][1],
+    });
   }
   return run.id;
 }
@@ -75,7 +94,14 @@ async function seedRun(projectId: string, editorId: string) {
 const demoOrdering = () => ({
   curve: { name: DEFAULT_MODEL.rotationCurve },
   arms: {
-    custom: DEFAULT_MODEL.arms.map((a) => ({ name: a.name, Rref: a.RrefKpc, betaRefDeg: a.betaRefDeg, pitchDeg: a.pitchDeg, betaMinDeg: a.betaMinDeg, betaMaxDeg: a.betaMaxDeg })),
+    custom: DEFAULT_MODEL.arms.map((a) => ({
+      name: a.name,
+      Rref: a.RrefKpc,
+      betaRefDeg: a.betaRefDeg,
+      pitchDeg: a.pitchDeg,
+      betaMinDeg: a.betaMinDeg,
+      betaMaxDeg: a.betaMaxDeg,
+    })),
   },
   patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
   armWidthKpc: 1,
@@ -86,7 +112,10 @@ const demoOrdering = () => ({
 
 async function seedAnalysis(projectId: string, editorId: string, ownerId: string, runId: string) {
   await updateProject(projectId, ownerId, { settings: { ordering: demoOrdering() } }, 'owner');
-  const [existing] = await db.select({ id: analyses.id }).from(analyses).where(and(eq(analyses.projectId, projectId), eq(analyses.status, 'done')));
+  const [existing] = await db
+    .select({ id: analyses.id })
+    .from(analyses)
+    .where(and(eq(analyses.projectId, projectId), eq(analyses.status, 'done')));
   if (existing) return;
   await startAnalysis(
     projectId,

@@ -14,7 +14,9 @@ export function AcceptInvitation({ token }: { token: string }) {
       <Button
         onClick={async () => {
           try {
-            const { projectId } = await api<{ projectId: string }>(`/api/invitations/${token}`, { method: 'POST' });
+            const { projectId } = await api<{ projectId: string }>(`/api/invitations/${token}`, {
+              method: 'POST',
+            });
             router.push(`/projects/${projectId}`);
           } catch (e) {
             setError(e instanceof Error ? e.message : String(e));

@@ -7,11 +7,20 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNote, Panel } from '@/components/ui/panel';
 
-type Token = { id: string; name: string; prefix: string; createdAt: string; lastUsedAt: string | null };
+type Token = {
+  id: string;
+  name: string;
+  prefix: string;
+  createdAt: string;
+  lastUsedAt: string | null;
+};
 
 export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean }) {
   const qc = useQueryClient();
-  const tokens = useQuery({ queryKey: ['tokens'], queryFn: () => api<{ tokens: Token[] }>('/api/tokens') });
+  const tokens = useQuery({
+    queryKey: ['tokens'],
+    queryFn: () => api<{ tokens: Token[] }>('/api/tokens'),
+  });
   const [name, setName] = useState('');
   const [fresh, setFresh] = useState<string | null>(null);
   const [notify, setNotify] = useState(notifyRunEmails);
@@ -33,17 +42,36 @@ export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean 
     <div className="space-y-6">
       <Panel title="Personal API tokens">
         <p className="mb-3 text-sm text-ink-soft">
-          Scripts and notebooks send a token as <code className="font-mono">Authorization: Bearer …</code>. A token acts
-          with your roles in every project; revoke it when it is no longer needed.
+          Scripts and notebooks send a token as{' '}
+          <code className="font-mono">Authorization: Bearer …</code>. A token acts with your roles
+          in every project; revoke it when it is no longer needed.
         </p>
-        <form className="flex items-end gap-3" onSubmit={(e) => { e.preventDefault(); setError(null); create.mutate(); }}>
-          <div className="flex-1"><TextField label="Token name" name="tokenName" placeholder="e.g. analysis notebook" required value={name} onChange={(e) => setName(e.target.value)} /></div>
+        <form
+          className="flex items-end gap-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            setError(null);
+            create.mutate();
+          }}
+        >
+          <div className="flex-1">
+            <TextField
+              label="Token name"
+              name="tokenName"
+              placeholder="e.g. analysis notebook"
+              required
+              value={name}
+              onChange={(e) => setName(e.target.value)}
+            />
+          </div>
           <Button type="submit">Create token</Button>
         </form>
         {fresh && (
           <div className="mt-3 rounded-md border border-ok/40 bg-ok/5 p-3 text-sm">
             <p className="font-medium">Copy it now — it is shown only once:</p>
-            <code data-testid="new-token" className="mt-1 block break-all font-mono">{fresh}</code>
+            <code data-testid="new-token" className="mt-1 block break-all font-mono">
+              {fresh}
+            </code>
           </div>
         )}
         <ErrorNote>{error}</ErrorNote>
@@ -52,9 +80,14 @@ export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean 
             <li key={t.id} className="flex items-center justify-between py-2">
               <span>
                 <b>{t.name}</b> <code className="font-mono text-ink-soft">{t.prefix}…</code>{' '}
-                <span className="text-ink-soft">created {new Date(t.createdAt).toLocaleDateString()}{t.lastUsedAt ? `, last used ${new Date(t.lastUsedAt).toLocaleString()}` : ''}</span>
+                <span className="text-ink-soft">
+                  created {new Date(t.createdAt).toLocaleDateString()}
+                  {t.lastUsedAt ? `, last used ${new Date(t.lastUsedAt).toLocaleString()}` : ''}
+                </span>
               </span>
-              <Button variant="quiet" onClick={() => revoke.mutate(t.id)}>Revoke</Button>
+              <Button variant="quiet" onClick={() => revoke.mutate(t.id)}>
+                Revoke
+              </Button>
             </li>
           ))}
         </ul>
@@ -66,7 +99,10 @@ export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean 
             checked={notify}
             onChange={async (e) => {
               setNotify(e.target.checked);
-              await api('/api/account', { method: 'PATCH', json: { notifyRunEmails: e.target.checked } });
+              await api('/api/account', {
+                method: 'PATCH',
+                json: { notifyRunEmails: e.target.checked },
+              });
             }}
           />
           E-mail me when a link run I started ends after running for more than a minute.

@@ -18,7 +18,10 @@ export function CreateProjectForm() {
         e.preventDefault();
         setError(null);
         try {
-          const { project } = await api<{ project: { id: string } }>('/api/projects', { method: 'POST', json: { name } });
+          const { project } = await api<{ project: { id: string } }>('/api/projects', {
+            method: 'POST',
+            json: { name },
+          });
           router.push(`/projects/${project.id}`);
         } catch (err) {
           setError(err instanceof Error ? err.message : String(err));
@@ -26,10 +29,19 @@ export function CreateProjectForm() {
       }}
     >
       <div className="min-w-72 flex-1">
-        <TextField label="New project" name="projectName" placeholder="e.g. Outer-arm CO survey" required value={name} onChange={(e) => setName(e.target.value)} />
+        <TextField
+          label="New project"
+          name="projectName"
+          placeholder="e.g. Outer-arm CO survey"
+          required
+          value={name}
+          onChange={(e) => setName(e.target.value)}
+        />
       </div>
       <Button type="submit">Create project</Button>
-      <div className="w-full"><ErrorNote>{error}</ErrorNote></div>
+      <div className="w-full">
+        <ErrorNote>{error}</ErrorNote>
+      </div>
     </form>
   );
 }

@@ -7,7 +7,13 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNote, Panel } from '@/components/ui/panel';
 
-export function ProjectSettingsForm({ project, canEdit }: { project: { id: string; name: string; description: string }; canEdit: boolean }) {
+export function ProjectSettingsForm({
+  project,
+  canEdit,
+}: {
+  project: { id: string; name: string; description: string };
+  canEdit: boolean;
+}) {
   const router = useRouter();
   const [form, setForm] = useState({ name: project.name, description: project.description });
   const [error, setError] = useState<string | null>(null);
@@ -29,8 +35,20 @@ export function ProjectSettingsForm({ project, canEdit }: { project: { id: strin
             }
           }}
         >
-          <TextField label="Name" name="name" disabled={!canEdit} value={form.name} onChange={(e) => setForm({ ...form, name: e.target.value })} />
-          <TextField label="Description" name="description" disabled={!canEdit} value={form.description} onChange={(e) => setForm({ ...form, description: e.target.value })} />
+          <TextField
+            label="Name"
+            name="name"
+            disabled={!canEdit}
+            value={form.name}
+            onChange={(e) => setForm({ ...form, name: e.target.value })}
+          />
+          <TextField
+            label="Description"
+            name="description"
+            disabled={!canEdit}
+            value={form.description}
+            onChange={(e) => setForm({ ...form, description: e.target.value })}
+          />
           <ErrorNote>{error}</ErrorNote>
           {canEdit && <Button type="submit">Save</Button>}
           {saved && <span className="ml-3 text-sm text-ok">Saved.</span>}
@@ -38,7 +56,10 @@ export function ProjectSettingsForm({ project, canEdit }: { project: { id: strin
       </Panel>
       {canEdit && (
         <Panel title="Delete the project">
-          <p className="mb-3 text-sm text-ink-soft">Removes its catalogs, link runs, reviews and analyses for every member. This cannot be undone.</p>
+          <p className="mb-3 text-sm text-ink-soft">
+            Removes its catalogs, link runs, reviews and analyses for every member. This cannot be
+            undone.
+          </p>
           <Button
             variant="danger"
             onClick={async () => {

@@ -11,7 +11,12 @@ export function ResetRequestForm() {
   const [email, setEmail] = useState('');
   const [sent, setSent] = useState(false);
   const [error, setError] = useState<string | null>(null);
-  if (sent) return <p className="text-sm">If an account uses <b>{email}</b>, a reset link is on its way. It works once, for one hour.</p>;
+  if (sent)
+    return (
+      <p className="text-sm">
+        If an account uses <b>{email}</b>, a reset link is on its way. It works once, for one hour.
+      </p>
+    );
   return (
     <form
       className="space-y-4"
@@ -25,9 +30,18 @@ export function ResetRequestForm() {
         }
       }}
     >
-      <TextField label="E-mail" type="email" name="email" required value={email} onChange={(e) => setEmail(e.target.value)} />
+      <TextField
+        label="E-mail"
+        type="email"
+        name="email"
+        required
+        value={email}
+        onChange={(e) => setEmail(e.target.value)}
+      />
       <ErrorNote>{error}</ErrorNote>
-      <Button type="submit" className="w-full">Send reset link</Button>
+      <Button type="submit" className="w-full">
+        Send reset link
+      </Button>
     </form>
   );
 }
@@ -39,7 +53,10 @@ export function ResetConfirmForm({ token }: { token: string }) {
   if (done)
     return (
       <p className="text-sm">
-        Your password is changed. <Link className="text-accent underline" href="/signin">Sign in</Link>
+        Your password is changed.{' '}
+        <Link className="text-accent underline" href="/signin">
+          Sign in
+        </Link>
       </p>
     );
   return (
@@ -48,16 +65,30 @@ export function ResetConfirmForm({ token }: { token: string }) {
       onSubmit={async (e) => {
         e.preventDefault();
         try {
-          await api('/api/account/password-reset/confirm', { method: 'POST', json: { token, password } });
+          await api('/api/account/password-reset/confirm', {
+            method: 'POST',
+            json: { token, password },
+          });
           setDone(true);
         } catch (err) {
           setError(err instanceof Error ? err.message : String(err));
         }
       }}
     >
-      <TextField label="New password" type="password" name="password" minLength={10} required value={password} onChange={(e) => setPassword(e.target.value)} hint="At least 10 characters." />
+      <TextField
+        label="New password"
+        type="password"
+        name="password"
+        minLength={10}
+        required
+        value={password}
+        onChange={(e) => setPassword(e.target.value)}
+        hint="At least 10 characters."
+      />
       <ErrorNote>{error}</ErrorNote>
-      <Button type="submit" className="w-full">Set new password</Button>
+      <Button type="submit" className="w-full">
+        Set new password
+      </Button>
     </form>
   );
 }

@@ -32,9 +32,35 @@ export function SignUpForm({ next, email: fixedEmail }: { next: string; email?: 
         }
       }}
     >
-      <TextField label="Name" name="name" autoComplete="name" required value={form.name} onChange={(e) => setForm({ ...form, name: e.target.value })} />
-      <TextField label="E-mail" type="email" name="email" autoComplete="email" required readOnly={!!fixedEmail} value={form.email} onChange={(e) => setForm({ ...form, email: e.target.value })} />
-      <TextField label="Password" type="password" name="password" autoComplete="new-password" required minLength={10} hint="At least 10 characters." value={form.password} onChange={(e) => setForm({ ...form, password: e.target.value })} />
+      <TextField
+        label="Name"
+        name="name"
+        autoComplete="name"
+        required
+        value={form.name}
+        onChange={(e) => setForm({ ...form, name: e.target.value })}
+      />
+      <TextField
+        label="E-mail"
+        type="email"
+        name="email"
+        autoComplete="email"
+        required
+        readOnly={!!fixedEmail}
+        value={form.email}
+        onChange={(e) => setForm({ ...form, email: e.target.value })}
+      />
+      <TextField
+        label="Password"
+        type="password"
+        name="password"
+        autoComplete="new-password"
+        required
+        minLength={10}
+        hint="At least 10 characters."
+        value={form.password}
+        onChange={(e) => setForm({ ...form, password: e.target.value })}
+      />
       <ErrorNote>{error}</ErrorNote>
       <Button type="submit" disabled={busy} className="w-full">
         {busy ? 'Creating account…' : 'Create account'}

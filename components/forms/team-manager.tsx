@@ -13,10 +13,21 @@ type Members = {
   invitations: { id: string; email: string; role: Role; expiresAt: string }[];
 };
 
-export function TeamManager({ projectId, myId, isOwner }: { projectId: string; myId: string; isOwner: boolean }) {
+export function TeamManager({
+  projectId,
+  myId,
+  isOwner,
+}: {
+  projectId: string;
+  myId: string;
+  isOwner: boolean;
+}) {
   const qc = useQueryClient();
   const key = ['members', projectId];
-  const { data } = useQuery({ queryKey: key, queryFn: () => api<Members>(`/api/projects/${projectId}/members`) });
+  const { data } = useQuery({
+    queryKey: key,
+    queryFn: () => api<Members>(`/api/projects/${projectId}/members`),
+  });
   const [email, setEmail] = useState('');
   const [role, setRole] = useState<Role>('editor');
   const [error, setError] = useState<string | null>(null);
@@ -40,16 +51,31 @@ export function TeamManager({ projectId, myId, isOwner }: { projectId: string; m
               e.preventDefault();
               setNotice(null);
               run(async () => {
-                await api(`/api/projects/${projectId}/members`, { method: 'POST', json: { email, role } });
+                await api(`/api/projects/${projectId}/members`, {
+                  method: 'POST',
+                  json: { email, role },
+                });
                 setNotice(`Invitation sent to ${email}.`);
                 setEmail('');
               });
             }}
           >
             <div className="min-w-64 flex-1">
-              <TextField label="E-mail" type="email" name="inviteEmail" required value={email} onChange={(e) => setEmail(e.target.value)} />
+              <TextField
+                label="E-mail"
+                type="email"
+                name="inviteEmail"
+                required
+                value={email}
+                onChange={(e) => setEmail(e.target.value)}
+              />
             </div>
-            <SelectField label="Role" name="inviteRole" value={role} onChange={(e) => setRole(e.target.value as Role)}>
+            <SelectField
+              label="Role"
+              name="inviteRole"
+              value={role}
+              onChange={(e) => setRole(e.target.value as Role)}
+            >
               <option value="viewer">viewer</option>
               <option value="editor">editor</option>
               <option value="owner">owner</option>
@@ -63,7 +89,12 @@ export function TeamManager({ projectId, myId, isOwner }: { projectId: string; m
       <Panel title="Members">
         <table className="w-full text-sm">
           <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-            <tr><th className="py-1">Name</th><th>E-mail</th><th>Role</th><th /></tr>
+            <tr>
+              <th className="py-1">Name</th>
+              <th>E-mail</th>
+              <th>Role</th>
+              <th />
+            </tr>
           </thead>
           <tbody className="divide-y divide-rule">
             {data?.members.map((m) => (
@@ -76,7 +107,14 @@ export function TeamManager({ projectId, myId, isOwner }: { projectId: string; m
                       aria-label={`Role of ${m.email}`}
                       className="rounded border border-rule bg-white px-2 py-1"
                       value={m.role}
-                      onChange={(e) => run(() => api(`/api/projects/${projectId}/members/${m.userId}`, { method: 'PATCH', json: { role: e.target.value } }))}
+                      onChange={(e) =>
+                        run(() =>
+                          api(`/api/projects/${projectId}/members/${m.userId}`, {
+                            method: 'PATCH',
+                            json: { role: e.target.value },
+                          }),
+                        )
+                      }
                     >
                       <option value="viewer">viewer</option>
                       <option value="editor">editor</option>
@@ -91,8 +129,18 @@ export function TeamManager({ projectId, myId, isOwner }: { projectId: string; m
                     <Button
                       variant="quiet"
                       onClick={() => {
-                        if (confirm(m.userId === myId ? 'Leave this project?' : `Remove ${m.email} from the project?`))
-                          run(() => api(`/api/projects/${projectId}/members/${m.userId}`, { method: 'DELETE' }));
+                        if (
+                          confirm(
+                            m.userId === myId
+                              ? 'Leave this project?'
+                              : `Remove ${m.email} from the project?`,
+                          )
+                        )
+                          run(() =>
+                            api(`/api/projects/${projectId}/members/${m.userId}`, {
+                              method: 'DELETE',
+                            }),
+                          );
                       }}
                     >
                       {m.userId === myId ? 'Leave' : 'Remove'}
@@ -109,9 +157,18 @@ export function TeamManager({ projectId, myId, isOwner }: { projectId: string; m
           <ul className="divide-y divide-rule text-sm">
             {data.invitations.map((i) => (
               <li key={i.id} className="flex items-center justify-between py-2">
-                <span>{i.email} — {i.role}, until {new Date(i.expiresAt).toLocaleDateString()}</span>
+                <span>
+                  {i.email} — {i.role}, until {new Date(i.expiresAt).toLocaleDateString()}
+                </span>
                 {isOwner && (
-                  <Button variant="quiet" onClick={() => run(() => api(`/api/projects/${projectId}/invitations/${i.id}`, { method: 'DELETE' }))}>
+                  <Button
+                    variant="quiet"
+                    onClick={() =>
+                      run(() =>
+                        api(`/api/projects/${projectId}/invitations/${i.id}`, { method: 'DELETE' }),
+                      )
+                    }
+                  >
                     Revoke
                   </Button>
                 )}

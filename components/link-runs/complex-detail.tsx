@@ -170,7 +170,13 @@ export function ComplexDetail({
         <div className="2xl:sticky 2xl:top-6 2xl:order-last 2xl:self-start">
           <ReviewPanel key={c.id} runId={runId} complex={c} history={c.history} canEdit={canEdit} />
           <div className="mt-6">
-            <DistancePanel key={`d${c.id}`} runId={runId} complexId={c.id} current={c.distanceOverride} canEdit={canEdit} />
+            <DistancePanel
+              key={`d${c.id}`}
+              runId={runId}
+              complexId={c.id}
+              current={c.distanceOverride}
+              canEdit={canEdit}
+            />
           </div>
         </div>
         <div className="space-y-6">

@@ -158,7 +158,12 @@ export interface HistoryEntry {
 }
 
 export type DistanceOverride = { distKpc: number; note: string; by: string; at: string };
-export type ComplexDetail = Complex & { members: Member[]; links: Link[]; history: HistoryEntry[]; distanceOverride: DistanceOverride | null };
+export type ComplexDetail = Complex & {
+  members: Member[];
+  links: Link[];
+  history: HistoryEntry[];
+  distanceOverride: DistanceOverride | null;
+};
 
 export interface Comparison {
   a: { id: string; links: number; complexes: number };

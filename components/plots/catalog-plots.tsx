@@ -57,14 +57,36 @@ const V_AXIS: AxisSpec = { symbol: 'v', label: 'LSR velocity v', unit: 'km/s' };
  * the longitude–velocity diagram (v_LSR, radio convention; rows without a velocity are left
  * out). The plotted longitudes are computed once for both.
  */
-export function CatalogPlots({ points, kind, name }: { points: Float32Array; kind: string; name: string }) {
+export function CatalogPlots({
+  points,
+  kind,
+  name,
+}: {
+  points: Float32Array;
+  kind: string;
+  name: string;
+}) {
   const { lDeg, axis } = useMemo(() => plottedLongitudes(points), [points]);
   const bDeg = useMemo(() => column(points, 1), [points]);
   const vKms = useMemo(() => column(points, 2), [points]);
   const t = tracerStyle(kind);
   const plots = [
-    { ys: bDeg, y: B_AXIS, title: `Sky plot of ${name}`, stem: 'sky', aspect: 0.4, testId: 'sky-plot' },
-    { ys: vKms, y: V_AXIS, title: `Longitude–velocity diagram of ${name}`, stem: 'lv', aspect: 0.5, testId: 'lv-plot' },
+    {
+      ys: bDeg,
+      y: B_AXIS,
+      title: `Sky plot of ${name}`,
+      stem: 'sky',
+      aspect: 0.4,
+      testId: 'sky-plot',
+    },
+    {
+      ys: vKms,
+      y: V_AXIS,
+      title: `Longitude–velocity diagram of ${name}`,
+      stem: 'lv',
+      aspect: 0.5,
+      testId: 'lv-plot',
+    },
   ];
   return (
     <div className="space-y-6">

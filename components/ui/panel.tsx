@@ -22,7 +22,15 @@ export function Panel({
   );
 }
 
-export function PageHeader({ title, lead, actions }: { title: string; lead?: string; actions?: React.ReactNode }) {
+export function PageHeader({
+  title,
+  lead,
+  actions,
+}: {
+  title: string;
+  lead?: string;
+  actions?: React.ReactNode;
+}) {
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
       <div>
@@ -47,7 +55,10 @@ export function EmptyState({ title, children }: { title: string; children?: Reac
 export function ErrorNote({ children }: { children: React.ReactNode }) {
   if (!children) return null;
   return (
-    <p role="alert" className="rounded-md border border-danger/30 bg-danger/5 px-3 py-2 text-sm text-danger">
+    <p
+      role="alert"
+      className="rounded-md border border-danger/30 bg-danger/5 px-3 py-2 text-sm text-danger"
+    >
       {children}
     </p>
   );
@@ -56,7 +67,14 @@ export function ErrorNote({ children }: { children: React.ReactNode }) {
 export function ProgressBar({ value, label }: { value: number; label?: string }) {
   const pct = Math.round(Math.max(0, Math.min(1, value)) * 100);
   return (
-    <div className="flex items-center gap-2" role="progressbar" aria-valuenow={pct} aria-valuemin={0} aria-valuemax={100} aria-label={label ?? 'progress'}>
+    <div
+      className="flex items-center gap-2"
+      role="progressbar"
+      aria-valuenow={pct}
+      aria-valuemin={0}
+      aria-valuemax={100}
+      aria-label={label ?? 'progress'}
+    >
       <div className="h-2 w-32 overflow-hidden rounded-full bg-paper-deep">
         <div className="h-full bg-accent transition-all" style={{ width: `${pct}%` }} />
       </div>

@@ -56,7 +56,8 @@ export async function requireUser(req?: Request): Promise<PublicUser> {
 /** 401 unless signed in, 403 unless a site admin. */
 export async function requireSiteAdmin(req?: Request): Promise<PublicUser> {
   const user = await requireUser(req);
-  if (user.siteRole !== 'admin') throw new HttpError(403, 'forbidden', 'Only site admins may do this.');
+  if (user.siteRole !== 'admin')
+    throw new HttpError(403, 'forbidden', 'Only site admins may do this.');
   return user;
 }
 

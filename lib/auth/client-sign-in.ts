@@ -3,7 +3,9 @@
  * next-auth/react's signIn) so that the 429 of the rate limit reaches the form as a message.
  */
 export async function signInWithPassword(email: string, password: string): Promise<string | null> {
-  const csrf = await fetch('/api/auth/csrf').then((r) => r.json() as Promise<{ csrfToken: string }>);
+  const csrf = await fetch('/api/auth/csrf').then(
+    (r) => r.json() as Promise<{ csrfToken: string }>,
+  );
   const res = await fetch('/api/auth/callback/credentials', {
     method: 'POST',
     headers: { 'content-type': 'application/x-www-form-urlencoded', 'x-auth-return-redirect': '1' },

@@ -13,7 +13,9 @@ export async function pageUser(): Promise<PublicUser> {
 }
 
 /** For project pages: the same role rule as the API (non-members see "not found"). */
-export async function pageProjectRole(projectId: string): Promise<{ user: PublicUser; role: ProjectRole }> {
+export async function pageProjectRole(
+  projectId: string,
+): Promise<{ user: PublicUser; role: ProjectRole }> {
   const user = await pageUser();
   const role = await roleInProject(projectId, user.id);
   if (!role) notFound();

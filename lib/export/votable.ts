@@ -106,7 +106,8 @@ export async function* votableStream(options: VotableOptions): AsyncGenerator<st
       );
     }
     piece += '          <TR>';
-    for (let i = 0; i < row.length; i++) piece += `<TD>${cellText(row[i], fields[i].datatype)}</TD>`;
+    for (let i = 0; i < row.length; i++)
+      piece += `<TD>${cellText(row[i], fields[i].datatype)}</TD>`;
     piece += '</TR>\n';
     if (piece.length > 65_536) {
       yield piece;

@@ -11,7 +11,11 @@ export class HttpError extends Error {
 }
 
 export const unauthenticated = () =>
-  new HttpError(401, 'unauthenticated', 'Sign in, or send a personal API token as Authorization: Bearer.');
+  new HttpError(
+    401,
+    'unauthenticated',
+    'Sign in, or send a personal API token as Authorization: Bearer.',
+  );
 export const forbidden = (what = 'do this') =>
   new HttpError(403, 'forbidden', `Your role in this project does not allow you to ${what}.`);
 export const notFound = (what: string) => new HttpError(404, 'not_found', `${what} was not found.`);

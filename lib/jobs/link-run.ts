@@ -7,5 +7,9 @@ const runIdOf = (payload: Record<string, unknown>) => String(payload.runId);
 registerJobHandler('link-run', {
   run: ({ job, progress, signal }) => executeLinkRun(runIdOf(job.payload), progress, signal),
   cleanup: (job, reason) =>
-    failLinkRun(runIdOf(job.payload), reason, /cancel/i.test(reason) || reason === new MatchCancelledError().message),
+    failLinkRun(
+      runIdOf(job.payload),
+      reason,
+      /cancel/i.test(reason) || reason === new MatchCancelledError().message,
+    ),
 });

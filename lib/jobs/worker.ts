@@ -1,5 +1,12 @@
 import os from 'node:os';
-import { claimJob, failJob, finishJob, recoverStaleJobs, reportProgress, getJob } from '@/lib/services/jobs';
+import {
+  claimJob,
+  failJob,
+  finishJob,
+  recoverStaleJobs,
+  reportProgress,
+  getJob,
+} from '@/lib/services/jobs';
 import { jobHandler, type JobContext } from './handlers';
 import './register';
 
@@ -54,9 +61,13 @@ async function runOne(workerId: string): Promise<boolean> {
   } catch (e) {
     const cancelled = e instanceof JobCancelled || abort.signal.aborted;
     const reason = e instanceof Error ? e.message : String(e);
-    await handler.cleanup(job, reason).catch((err) => console.error('[worker] cleanup failed:', err));
+    await handler
+      .cleanup(job, reason)
+      .catch((err) => console.error('[worker] cleanup failed:', err));
     await failJob(job.id, reason, cancelled ? 'cancelled' : 'failed');
-    console.error(`[worker] job ${job.id} (${job.kind}) ${cancelled ? 'cancelled' : 'failed'}: ${reason}`);
+    console.error(
+      `[worker] job ${job.id} (${job.kind}) ${cancelled ? 'cancelled' : 'failed'}: ${reason}`,
+    );
   } finally {
     clearInterval(beat);
   }
@@ -77,7 +88,10 @@ export async function runWorker(opts: { once?: boolean } = {}) {
       const recovered = await recoverStaleJobs(STALE_SECONDS).catch(() => []);
       for (const r of recovered) {
         console.log(`[worker] job ${r.job.id} of a stopped worker ${r.action}`);
-        if (r.action === 'failed') await jobHandler(r.job.kind)?.cleanup(r.job, r.reason).catch(() => undefined);
+        if (r.action === 'failed')
+          await jobHandler(r.job.kind)
+            ?.cleanup(r.job, r.reason)
+            .catch(() => undefined);
       }
     }
     const worked = await runOne(workerId).catch((e) => {

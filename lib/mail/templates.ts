@@ -7,14 +7,24 @@ export function passwordResetMail(link: string) {
   };
 }
 
-export function invitationMail(opts: { link: string; projectName: string; role: string; inviter: string }) {
+export function invitationMail(opts: {
+  link: string;
+  projectName: string;
+  role: string;
+  inviter: string;
+}) {
   return {
     subject: `You are invited to "${opts.projectName}" on Lanewise`,
     text: `${opts.inviter} invited you to the Lanewise project "${opts.projectName}" as ${opts.role}.\n\nAccept the invitation here (it works once, for seven days):\n${opts.link}\n\nYou will be asked to sign in, or to create an account with this address.\n`,
   };
 }
 
-export function runFinishedMail(opts: { link: string; projectName: string; status: string; summary: string }) {
+export function runFinishedMail(opts: {
+  link: string;
+  projectName: string;
+  status: string;
+  summary: string;
+}) {
   return {
     subject: `Link run ${opts.status} in "${opts.projectName}"`,
     text: `Your link run in "${opts.projectName}" has ${opts.status}.\n\n${opts.summary}\n\nOpen it: ${opts.link}\n\nYou can turn these messages off on your Account page.\n`,

@@ -2,12 +2,26 @@ import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
-import { analyses, auditLog, catalogs, complexes, distanceOverrides, jobs, linkRuns, users } from '@/db/schema';
+import {
+  analyses,
+  auditLog,
+  catalogs,
+  complexes,
+  distanceOverrides,
+  jobs,
+  linkRuns,
+  users,
+} from '@/db/schema';
 import { ARM_MODEL_PRESETS, type ArmSpec } from '@/lib/astro/arms';
 import { ROTATION_CURVE_PRESETS } from '@/lib/astro/rotation-curves';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
-import { runOrderingAnalysis, type OrderingComplex, type OrderingMember, type OrderingSettings } from '@/lib/ordering';
+import {
+  runOrderingAnalysis,
+  type OrderingComplex,
+  type OrderingMember,
+  type OrderingSettings,
+} from '@/lib/ordering';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
 import { toolCurve } from '@/lib/calculators';
@@ -34,7 +48,12 @@ export const analysisSchema = z.object({
     z.object({ custom: z.array(customArmSchema).min(1, 'Give at least one arm.').max(12) }),
   ]),
   patternSpeed: z.number().min(0).max(200),
-  resamples: z.number().int().min(2000, 'Use at least 2 000 resamples (SCIENCE.md §6).').max(20_000).default(2000),
+  resamples: z
+    .number()
+    .int()
+    .min(2000, 'Use at least 2 000 resamples (SCIENCE.md §6).')
+    .max(20_000)
+    .default(2000),
   seed: z.number().int().default(1),
   armWidthKpc: z.number().positive().max(5).default(1),
   sigmaStreamKms: z.number().min(0).max(50).default(7),
@@ -49,10 +68,22 @@ export type AnalysisParams = z.infer<typeof analysisSchema>;
 export function armsOf(params: AnalysisParams): { arms: ArmSpec[]; label: string; source: string } {
   if ('preset' in params.arms) {
     const p = ARM_MODEL_PRESETS[params.arms.preset];
-    if (!p) throw new HttpError(400, 'unknown_preset', `arms.preset: no arm model "${params.arms.preset}"; use one of ${Object.keys(ARM_MODEL_PRESETS).join(', ')}.`);
+    if (!p)
+      throw new HttpError(
+        400,
+        'unknown_preset',
+        `arms.preset: no arm model "${params.arms.preset}"; use one of ${Object.keys(ARM_MODEL_PRESETS).join(', ')}.`,
+      );
     return { arms: p.arms, label: p.label, source: p.source };
   }
-  const arms = params.arms.custom.map((a) => ({ name: a.name, RrefKpc: a.Rref, betaRefDeg: a.betaRefDeg, pitchDeg: a.pitchDeg, betaMinDeg: a.betaMinDeg, betaMaxDeg: a.betaMaxDeg }));
+  const arms = params.arms.custom.map((a) => ({
+    name: a.name,
+    RrefKpc: a.Rref,
+    betaRefDeg: a.betaRefDeg,
+    pitchDeg: a.pitchDeg,
+    betaMinDeg: a.betaMinDeg,
+    betaMaxDeg: a.betaMaxDeg,
+  }));
   return { arms, label: 'custom arms', source: 'defined in this project' };
 }
 
@@ -73,19 +104,35 @@ export function orderingSettings(params: AnalysisParams): OrderingSettings {
 
 export function armPresets() {
   return {
-    presets: Object.entries(ARM_MODEL_PRESETS).map(([key, p]) => ({ key, label: p.label, source: p.source, R0Kpc: p.R0Kpc, arms: p.arms })),
+    presets: Object.entries(ARM_MODEL_PRESETS).map(([key, p]) => ({
+      key,
+      label: p.label,
+      source: p.source,
+      R0Kpc: p.R0Kpc,
+      arms: p.arms,
+    })),
     curves: ROTATION_CURVE_PRESETS,
   };
 }
 
 export async function startAnalysis(projectId: string, userId: string, params: AnalysisParams) {
   const run = await requireDoneRun(params.runId);
-  if (run.projectId !== projectId) throw new HttpError(400, 'unknown_run', 'runId: no such link run in this project.');
+  if (run.projectId !== projectId)
+    throw new HttpError(400, 'unknown_run', 'runId: no such link run in this project.');
   orderingSettings(params);
   const id = newId();
   await db.transaction(async (tx) => {
-    const [job] = await tx.insert(jobs).values({ kind: 'analysis', projectId, payload: { analysisId: id }, createdBy: userId });
-    await tx.insert(analyses).values({ id, projectId, runId: params.runId, params, jobId: Number(job.insertId), createdBy: userId });
+    const [job] = await tx
+      .insert(jobs)
+      .values({ kind: 'analysis', projectId, payload: { analysisId: id }, createdBy: userId });
+    await tx.insert(analyses).values({
+      id,
+      projectId,
+      runId: params.runId,
+      params,
+      jobId: Number(job.insertId),
+      createdBy: userId,
+    });
   });
   return { id, status: 'queued' as const };
 }
@@ -93,9 +140,16 @@ export async function startAnalysis(projectId: string, userId: string, params: A
 /** Reads a run's complexes with their members' canonical columns, and any distance overrides. */
 async function loadComplexes(runId: string, catalogIds: string[]): Promise<OrderingComplex[]> {
   const byId = new Map<number, OrderingComplex>();
-  const [ids] = await pool().query<RowDataPacket[]>('SELECT id FROM complexes WHERE run_id = ? ORDER BY id', [runId]);
-  for (const r of ids) byId.set(Number(r.id), { id: String(r.id), members: [], distanceOverride: null });
-  const kinds = await db.select({ id: catalogs.id, kind: catalogs.kind }).from(catalogs).where(inArray(catalogs.id, catalogIds));
+  const [ids] = await pool().query<RowDataPacket[]>(
+    'SELECT id FROM complexes WHERE run_id = ? ORDER BY id',
+    [runId],
+  );
+  for (const r of ids)
+    byId.set(Number(r.id), { id: String(r.id), members: [], distanceOverride: null });
+  const kinds = await db
+    .select({ id: catalogs.id, kind: catalogs.kind })
+    .from(catalogs)
+    .where(inArray(catalogs.id, catalogIds));
   for (const catalogId of catalogIds) {
     const kind = kinds.find((k) => k.id === catalogId)?.kind ?? 'other';
     const [rows] = await pool().query<RowDataPacket[]>({
@@ -107,11 +161,22 @@ async function loadComplexes(runId: string, catalogIds: string[]): Promise<Order
     });
     const nan = (x: unknown) => (x === null ? NaN : Number(x));
     for (const r of rows as unknown as unknown[][]) {
-      const member: OrderingMember = { kind, lDeg: Number(r[1]), bDeg: Number(r[2]), vLsrKms: nan(r[3]), vErrKms: nan(r[4]), distKpc: nan(r[5]), distErrKpc: nan(r[6]) };
+      const member: OrderingMember = {
+        kind,
+        lDeg: Number(r[1]),
+        bDeg: Number(r[2]),
+        vLsrKms: nan(r[3]),
+        vErrKms: nan(r[4]),
+        distKpc: nan(r[5]),
+        distErrKpc: nan(r[6]),
+      };
       byId.get(Number(r[0]))?.members.push(member);
     }
   }
-  const overrides = await db.select().from(distanceOverrides).where(eq(distanceOverrides.runId, runId));
+  const overrides = await db
+    .select()
+    .from(distanceOverrides)
+    .where(eq(distanceOverrides.runId, runId));
   for (const o of overrides) {
     const c = byId.get(o.complexId);
     if (c) c.distanceOverride = { distKpc: o.distKpc, note: o.note ?? undefined };
@@ -123,7 +188,10 @@ async function loadComplexes(runId: string, catalogIds: string[]): Promise<Order
 export async function executeAnalysis(analysisId: string, progress: (f: number) => Promise<void>) {
   const [a] = await db.select().from(analyses).where(eq(analyses.id, analysisId));
   if (!a) throw new Error(`analysis ${analysisId} no longer exists`);
-  await db.update(analyses).set({ status: 'running', error: null }).where(eq(analyses.id, analysisId));
+  await db
+    .update(analyses)
+    .set({ status: 'running', error: null })
+    .where(eq(analyses.id, analysisId));
   const run = await requireDoneRun(a.runId);
   const params = analysisSchema.parse(a.params);
   const input = await loadComplexes(a.runId, run.catalogIds);
@@ -137,17 +205,28 @@ export async function executeAnalysis(analysisId: string, progress: (f: number) 
   });
   await db
     .update(analyses)
-    .set({ status: 'done', progress: 1, result: result as unknown as Record<string, unknown>, finishedAt: sql`NOW(3)` })
+    .set({
+      status: 'done',
+      progress: 1,
+      result: result as unknown as Record<string, unknown>,
+      finishedAt: sql`NOW(3)`,
+    })
     .where(eq(analyses.id, analysisId));
 }
 
 export async function failAnalysis(analysisId: string, reason: string) {
-  await db.update(analyses).set({ status: 'failed', error: reason.slice(0, 2000), result: null, finishedAt: sql`NOW(3)` }).where(eq(analyses.id, analysisId));
+  await db
+    .update(analyses)
+    .set({ status: 'failed', error: reason.slice(0, 2000), result: null, finishedAt: sql`NOW(3)` })
+    .where(eq(analyses.id, analysisId));
 }
 
 type AnalysisRow = typeof analyses.$inferSelect;
 
-function analysisJson(a: AnalysisRow, extra: { runName: string | null; creatorName: string | null; progress?: number }) {
+function analysisJson(
+  a: AnalysisRow,
+  extra: { runName: string | null; creatorName: string | null; progress?: number },
+) {
   const result = a.status === 'done' ? (a.result as Record<string, unknown> | null) : null;
   return {
     id: a.id,
@@ -176,7 +255,10 @@ export async function listAnalyses(projectId: string) {
     .where(eq(analyses.projectId, projectId))
     .orderBy(desc(analyses.createdAt));
   return rows.map(({ a, runName, creatorName }) => {
-    const r = a.result as { gasToStars?: { medianAcrossKpc?: number; pValue?: number }; delayMyr?: { median?: number } } | null;
+    const r = a.result as {
+      gasToStars?: { medianAcrossKpc?: number; pValue?: number };
+      delayMyr?: { median?: number };
+    } | null;
     const full = analysisJson(a, { runName, creatorName });
     return {
       id: full.id,
@@ -189,44 +271,89 @@ export async function listAnalyses(projectId: string) {
       createdAt: full.createdAt,
       finishedAt: full.finishedAt,
       createdBy: full.createdBy,
-      summary: a.status === 'done' && r ? { gasToStarsMedianKpc: r.gasToStars?.medianAcrossKpc ?? null, pValue: r.gasToStars?.pValue ?? null, delayMedianMyr: r.delayMyr?.median ?? null } : null,
+      summary:
+        a.status === 'done' && r
+          ? {
+              gasToStarsMedianKpc: r.gasToStars?.medianAcrossKpc ?? null,
+              pValue: r.gasToStars?.pValue ?? null,
+              delayMedianMyr: r.delayMyr?.median ?? null,
+            }
+          : null,
     };
   });
 }
 
 export async function getAnalysis(analysisId: string) {
   const [x] = await db
-    .select({ a: analyses, runName: linkRuns.name, creatorName: users.name, jobProgress: jobs.progress })
+    .select({
+      a: analyses,
+      runName: linkRuns.name,
+      creatorName: users.name,
+      jobProgress: jobs.progress,
+    })
     .from(analyses)
     .innerJoin(linkRuns, eq(linkRuns.id, analyses.runId))
     .leftJoin(users, eq(users.id, analyses.createdBy))
     .leftJoin(jobs, eq(jobs.id, analyses.jobId))
     .where(eq(analyses.id, analysisId));
   if (!x) throw notFound('Analysis');
-  return analysisJson(x.a, { runName: x.runName, creatorName: x.creatorName, progress: x.jobProgress ?? undefined });
+  return analysisJson(x.a, {
+    runName: x.runName,
+    creatorName: x.creatorName,
+    progress: x.jobProgress ?? undefined,
+  });
 }
 
 export async function analysisProject(analysisId: string) {
-  const [a] = await db.select({ projectId: analyses.projectId }).from(analyses).where(eq(analyses.id, analysisId));
+  const [a] = await db
+    .select({ projectId: analyses.projectId })
+    .from(analyses)
+    .where(eq(analyses.id, analysisId));
   if (!a) throw notFound('Analysis');
   return a.projectId;
 }
 
-export const distanceOverrideSchema = z.object({ distKpc: z.number().positive().max(50).nullable(), note: z.string().max(2000).default('') });
+export const distanceOverrideSchema = z.object({
+  distKpc: z.number().positive().max(50).nullable(),
+  note: z.string().max(2000).default(''),
+});
 
 /** Sets (or clears, with null) an editor's distance for a complex; recorded in the audit log. */
-export async function setDistanceOverride(runId: string, complexId: number, userId: string, input: z.infer<typeof distanceOverrideSchema>) {
+export async function setDistanceOverride(
+  runId: string,
+  complexId: number,
+  userId: string,
+  input: z.infer<typeof distanceOverrideSchema>,
+) {
   const run = await requireDoneRun(runId);
-  const [c] = await db.select({ id: complexes.id }).from(complexes).where(and(eq(complexes.runId, runId), eq(complexes.id, complexId)));
+  const [c] = await db
+    .select({ id: complexes.id })
+    .from(complexes)
+    .where(and(eq(complexes.runId, runId), eq(complexes.id, complexId)));
   if (!c) throw notFound('Complex');
   if (input.distKpc === null) {
-    await db.delete(distanceOverrides).where(and(eq(distanceOverrides.runId, runId), eq(distanceOverrides.complexId, complexId)));
+    await db
+      .delete(distanceOverrides)
+      .where(and(eq(distanceOverrides.runId, runId), eq(distanceOverrides.complexId, complexId)));
   } else {
     await db
       .insert(distanceOverrides)
       .values({ runId, complexId, distKpc: input.distKpc, note: input.note || null, setBy: userId })
-      .onDuplicateKeyUpdate({ set: { distKpc: input.distKpc, note: input.note || null, setBy: userId, setAt: sql`NOW(3)` } });
+      .onDuplicateKeyUpdate({
+        set: {
+          distKpc: input.distKpc,
+          note: input.note || null,
+          setBy: userId,
+          setAt: sql`NOW(3)`,
+        },
+      });
   }
-  await db.insert(auditLog).values({ projectId: run.projectId, userId, action: 'complex.distance', subject: `${runId}:${complexId}`, detail: { distKpc: input.distKpc, note: input.note } });
+  await db.insert(auditLog).values({
+    projectId: run.projectId,
+    userId,
+    action: 'complex.distance',
+    subject: `${runId}:${complexId}`,
+    detail: { distKpc: input.distKpc, note: input.note },
+  });
   return { distance: input.distKpc === null ? null : { distKpc: input.distKpc, note: input.note } };
 }

@@ -7,32 +7,109 @@ import pkg from '@/package.json';
 
 async function doneResult(analysisId: string) {
   const a = await getAnalysis(analysisId);
-  if (a.status !== 'done' || !a.result) throw new HttpError(409, 'not_done', `The analysis is ${a.status}; its tables exist once it is done.`);
+  if (a.status !== 'done' || !a.result)
+    throw new HttpError(
+      409,
+      'not_done',
+      `The analysis is ${a.status}; its tables exist once it is done.`,
+    );
   return { a, result: a.result as unknown as OrderingResult };
 }
 
 const ci = (c: [number, number] | null) => (c ? [c[0], c[1]] : [null, null]);
 
 /** One of the analysis tables as CSV text. */
-export async function analysisCsv(analysisId: string, table: 'complexes' | 'classes' | 'sources'): Promise<string> {
+export async function analysisCsv(
+  analysisId: string,
+  table: 'complexes' | 'classes' | 'sources',
+): Promise<string> {
   const { result } = await doneResult(analysisId);
   if (table === 'classes') {
-    const head = ['kind', 'n', 'median_offset_kpc', 'median_ci95_lo', 'median_ci95_hi', 'mean_offset_kpc', 'mean_ci95_lo', 'mean_ci95_hi', 'median_azimuth_offset_deg'];
-    return [csvLine(head), ...result.classes.map((c) => csvLine([c.kind, c.n, c.medianOffsetKpc, ...ci(c.ci95), c.meanOffsetKpc, ...ci(c.meanCi95), c.medianAzimuthOffsetDeg]))].join('');
+    const head = [
+      'kind',
+      'n',
+      'median_offset_kpc',
+      'median_ci95_lo',
+      'median_ci95_hi',
+      'mean_offset_kpc',
+      'mean_ci95_lo',
+      'mean_ci95_hi',
+      'median_azimuth_offset_deg',
+    ];
+    return [
+      csvLine(head),
+      ...result.classes.map((c) =>
+        csvLine([
+          c.kind,
+          c.n,
+          c.medianOffsetKpc,
+          ...ci(c.ci95),
+          c.meanOffsetKpc,
+          ...ci(c.meanCi95),
+          c.medianAzimuthOffsetDeg,
+        ]),
+      ),
+    ].join('');
   }
   if (table === 'sources') {
-    return [csvLine(['complex_id', 'kind', 'x_kpc', 'y_kpc', 'perp_offset_kpc']), ...result.sources.map((s) => csvLine([s.complexId, s.kind, s.xKpc, s.yKpc, s.perpOffsetKpc]))].join('');
+    return [
+      csvLine(['complex_id', 'kind', 'x_kpc', 'y_kpc', 'perp_offset_kpc']),
+      ...result.sources.map((s) => csvLine([s.complexId, s.kind, s.xKpc, s.yKpc, s.perpOffsetKpc])),
+    ].join('');
   }
-  const head = ['complex_id', 'l_deg', 'b_deg', 'v_lsr_kms', 'dist_kpc', 'dist_lo_kpc', 'dist_hi_kpc', 'distance_choice', 'distance_reason', 'flags', 'x_kpc', 'y_kpc', 'R_kpc', 'beta_deg', 'arm', 'perp_offset_kpc', 'azimuth_offset_deg', 'gas_to_stars_across_kpc', 'used', 'excluded_because'];
+  const head = [
+    'complex_id',
+    'l_deg',
+    'b_deg',
+    'v_lsr_kms',
+    'dist_kpc',
+    'dist_lo_kpc',
+    'dist_hi_kpc',
+    'distance_choice',
+    'distance_reason',
+    'flags',
+    'x_kpc',
+    'y_kpc',
+    'R_kpc',
+    'beta_deg',
+    'arm',
+    'perp_offset_kpc',
+    'azimuth_offset_deg',
+    'gas_to_stars_across_kpc',
+    'used',
+    'excluded_because',
+  ];
   return [
     csvLine(head),
     ...result.complexes.map((c) =>
-      csvLine([c.id, c.lDeg, c.bDeg, c.vLsrKms, c.distKpc, c.distLoKpc, c.distHiKpc, c.choice, c.reason, c.flags.join(' '), c.xKpc, c.yKpc, c.RKpc, c.betaDeg, c.arm, c.perpOffsetKpc, c.azimuthOffsetDeg, c.gasToStarsAcrossKpc, c.used, c.excludedBecause]),
+      csvLine([
+        c.id,
+        c.lDeg,
+        c.bDeg,
+        c.vLsrKms,
+        c.distKpc,
+        c.distLoKpc,
+        c.distHiKpc,
+        c.choice,
+        c.reason,
+        c.flags.join(' '),
+        c.xKpc,
+        c.yKpc,
+        c.RKpc,
+        c.betaDeg,
+        c.arm,
+        c.perpOffsetKpc,
+        c.azimuthOffsetDeg,
+        c.gasToStarsAcrossKpc,
+        c.used,
+        c.excludedBecause,
+      ]),
     ),
   ].join('');
 }
 
-const fmt = (x: number | null | undefined, digits = 3) => (x === null || x === undefined ? 'n/a' : x.toFixed(digits));
+const fmt = (x: number | null | undefined, digits = 3) =>
+  x === null || x === undefined ? 'n/a' : x.toFixed(digits);
 
 /** A methods text for the paper: every parameter with its reference, then the results. */
 export async function analysisMethods(analysisId: string): Promise<string> {
@@ -56,8 +133,15 @@ export async function analysisMethods(analysisId: string): Promise<string> {
     `- Frame: ${result.conventions}`,
     '',
     'Results',
-    `- Complexes: ${result.exclusions.complexes}, used ${result.exclusions.used}; excluded: ${Object.entries(result.exclusions.reasons).map(([k, v]) => `${k} ${v}`).join(', ') || 'none'}.`,
-    ...result.classes.map((c) => `- ${c.kind.toUpperCase()}: n = ${c.n}, median offset from the ridge ${fmt(c.medianOffsetKpc)} kpc (95 % CI ${c.ci95 ? `${fmt(c.ci95[0])} to ${fmt(c.ci95[1])}` : 'n/a'}).`),
+    `- Complexes: ${result.exclusions.complexes}, used ${result.exclusions.used}; excluded: ${
+      Object.entries(result.exclusions.reasons)
+        .map(([k, v]) => `${k} ${v}`)
+        .join(', ') || 'none'
+    }.`,
+    ...result.classes.map(
+      (c) =>
+        `- ${c.kind.toUpperCase()}: n = ${c.n}, median offset from the ridge ${fmt(c.medianOffsetKpc)} kpc (95 % CI ${c.ci95 ? `${fmt(c.ci95[0])} to ${fmt(c.ci95[1])}` : 'n/a'}).`,
+    ),
     `- Gas → young stars across the arm: n = ${g.n}, median ${fmt(g.medianAcrossKpc)} kpc (95 % CI ${g.ci95 ? `${fmt(g.ci95[0])} to ${fmt(g.ci95[1])}` : 'n/a'}), permutation p = ${fmt(g.pValue, 4)}.`,
     `- Delay: median ${fmt(result.delayMyr.median, 2)} Myr (95 % CI ${result.delayMyr.ci95 ? `${fmt(result.delayMyr.ci95[0], 2)} to ${fmt(result.delayMyr.ci95[1], 2)}` : 'n/a'}), n = ${result.delayMyr.n}.`,
     ...result.warnings.map((w) => `- Warning: ${w}`),

@@ -8,7 +8,9 @@ export function tsvCell(v: string | number | null | undefined): string {
   if (v === null || v === undefined) return '\\N';
   if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N';
   if (!NEEDS_ESCAPE.test(v)) return v;
-  return v.replace(/[\\\t\n\r]/g, (m) => (m === '\\' ? '\\\\' : m === '\t' ? '\\t' : m === '\n' ? '\\n' : '\\r'));
+  return v.replace(/[\\\t\n\r]/g, (m) =>
+    m === '\\' ? '\\\\' : m === '\t' ? '\\t' : m === '\n' ? '\\n' : '\\r',
+  );
 }
 
 /**

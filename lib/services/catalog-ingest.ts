@@ -10,11 +10,16 @@ import { makeBatchNormaliser } from '@/lib/ingest/normalise';
 import { openTable } from '@/lib/ingest/table';
 import { loadTsv, tsvCell } from './bulk-load';
 import { pointsPath } from './catalogs';
-import { createLoadTable, dropRowsTables, finaliseLoadTable, ROW_COLUMNS, rowsTableName } from './catalog-tables';
+import {
+  createLoadTable,
+  dropRowsTables,
+  finaliseLoadTable,
+  ROW_COLUMNS,
+  rowsTableName,
+} from './catalog-tables';
 
 /** The parse report keeps this many rejected rows; the count covers them all. */
 const MAX_STORED_REJECTS = 100_000;
-
 
 /** Rows parsed and checked per batch: small, so their cells die young and cost little to collect. */
 const PARSE_BATCH_ROWS = 2_000;
@@ -47,7 +52,9 @@ function appendTsvLines(c: CanonicalColumns, out: string[]) {
 async function insertRejects(catalogId: string, rejected: Rejection[]) {
   if (!rejected.length) return;
   const values = rejected.map((r) => [catalogId, r.line, r.reason.slice(0, 500)]);
-  await pool().query('INSERT IGNORE INTO catalog_rejects (catalog_id, line, reason) VALUES ?', [values]);
+  await pool().query('INSERT IGNORE INTO catalog_rejects (catalog_id, line, reason) VALUES ?', [
+    values,
+  ]);
 }
 
 /** Counts the bytes that pass, so progress can follow the file. */
@@ -73,16 +80,24 @@ async function clearStoredRows(catalogId: string) {
  * table that no reader uses (see catalog-tables.ts); the catalog turns `ready` last, in one
  * statement, so a crash or failure never shows a partial catalog (see {@link failIngest}).
  */
-export async function ingestCatalog(catalogId: string, progress: (fraction: number) => Promise<void>) {
+export async function ingestCatalog(
+  catalogId: string,
+  progress: (fraction: number) => Promise<void>,
+) {
   const [c] = await db.select().from(catalogs).where(eq(catalogs.id, catalogId));
   if (!c) throw new Error(`catalog ${catalogId} no longer exists`);
-  await db.update(catalogs).set({ status: 'ingesting', progress: 0, error: null }).where(eq(catalogs.id, catalogId));
+  await db
+    .update(catalogs)
+    .set({ status: 'ingesting', progress: 0, error: null })
+    .where(eq(catalogs.id, catalogId));
   await clearStoredRows(catalogId);
   await createLoadTable(catalogId);
 
   const size = fs.statSync(c.filePath).size || 1;
   const counter = byteCounter();
-  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter), { batchSize: PARSE_BATCH_ROWS });
+  const table = await openTable(fs.createReadStream(c.filePath).pipe(counter), {
+    batchSize: PARSE_BATCH_ROWS,
+  });
   const normalise = makeBatchNormaliser(table.header, c.mapping as Mapping);
   const pointsTmp = `${pointsPath(catalogId)}.tmp`;
   const points = fs.createWriteStream(pointsTmp);
@@ -109,7 +124,8 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
           { line: first.line },
         );
       }
-      if (rejectedCount < MAX_STORED_REJECTS) await insertRejects(catalogId, rejected.slice(0, MAX_STORED_REJECTS - rejectedCount));
+      if (rejectedCount < MAX_STORED_REJECTS)
+        await insertRejects(catalogId, rejected.slice(0, MAX_STORED_REJECTS - rejectedCount));
       rejectedCount += rejected.length;
       appendTsvLines(columns, pending);
       if (pending.length >= LOAD_BATCH_ROWS) await store();
@@ -120,7 +136,8 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
         f32[3 * i + 1] = columns.bDeg[i];
         f32[3 * i + 2] = columns.vLsrKms[i];
       }
-      if (!points.write(Buffer.from(f32.buffer))) await new Promise<void>((r) => points.once('drain', () => r()));
+      if (!points.write(Buffer.from(f32.buffer)))
+        await new Promise<void>((r) => points.once('drain', () => r()));
       const now = Date.now();
       if (now - lastReport > 250) {
         lastReport = now;
@@ -131,9 +148,14 @@ export async function ingestCatalog(catalogId: string, progress: (fraction: numb
     }
     await store();
     await storing;
-    await new Promise<void>((resolve, reject) => points.end((err?: Error | null) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve, reject) =>
+      points.end((err?: Error | null) => (err ? reject(err) : resolve())),
+    );
     if (rowCount === 0) {
-      throw new IngestFileError('no-data-rows', `No row of the file passed validation (${rejectedCount} rejected); see the parse report.`);
+      throw new IngestFileError(
+        'no-data-rows',
+        `No row of the file passed validation (${rejectedCount} rejected); see the parse report.`,
+      );
     }
     await progress(0.99);
     await finaliseLoadTable(catalogId);

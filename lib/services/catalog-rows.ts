@@ -41,14 +41,20 @@ export type RowsQuery = z.infer<typeof rowsQuerySchema>;
 async function assertReady(catalogId: string) {
   const c = await catalogState(catalogId);
   if (c.status !== 'ready') {
-    throw new HttpError(409, 'not_ready', `The catalog is ${c.status}; its rows are available once it is ready.`);
+    throw new HttpError(
+      409,
+      'not_ready',
+      `The catalog is ${c.status}; its rows are available once it is ready.`,
+    );
   }
   return c;
 }
 
 /** One page of canonical rows, sorted and filtered in SQL. */
 async function countRows(table: SQL, whereSql: SQL) {
-  const [[count]] = (await db.execute(sql`SELECT COUNT(*) AS n FROM ${table} WHERE ${whereSql}`)) as unknown as [[{ n: number }]];
+  const [[count]] = (await db.execute(
+    sql`SELECT COUNT(*) AS n FROM ${table} WHERE ${whereSql}`,
+  )) as unknown as [[{ n: number }]];
   return Number(count.n);
 }
 
@@ -82,7 +88,12 @@ export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
 export async function catalogPoints(catalogId: string) {
   const c = await assertReady(catalogId);
   const file = pointsPath(catalogId);
-  if (!fs.existsSync(file)) throw new HttpError(404, 'not_found', 'The plot points of this catalog are missing; ingest it again.');
+  if (!fs.existsSync(file))
+    throw new HttpError(
+      404,
+      'not_found',
+      'The plot points of this catalog are missing; ingest it again.',
+    );
   return { path: file, count: c.rowCount, bytes: fs.statSync(file).size };
 }
 
@@ -95,7 +106,21 @@ const EXPORT_CHUNK = 5000;
 export async function* catalogCsv(catalogId: string): AsyncGenerator<string> {
   const c = await assertReady(catalogId);
   const original = (c.columns ?? []).map((n) => `orig_${n}`);
-  yield csvLine(['row', 'line', 'name', 'l_deg', 'b_deg', 'v_lsr_kms', 'radius_arcsec', 'pos_err_arcsec', 'v_err_kms', 'line_width_sigma_kms', 'dist_kpc', 'dist_err_kpc', ...original]);
+  yield csvLine([
+    'row',
+    'line',
+    'name',
+    'l_deg',
+    'b_deg',
+    'v_lsr_kms',
+    'radius_arcsec',
+    'pos_err_arcsec',
+    'v_err_kms',
+    'line_width_sigma_kms',
+    'dist_kpc',
+    'dist_err_kpc',
+    ...original,
+  ]);
   let after = 0;
   for (;;) {
     const [rows] = await pool().query<RowDataPacket[]>(
@@ -105,8 +130,24 @@ export async function* catalogCsv(catalogId: string): AsyncGenerator<string> {
     if (!rows.length) return;
     let out = '';
     for (const r of rows) {
-      const orig = (typeof r.original === 'string' ? JSON.parse(r.original) : r.original) as string[];
-      out += csvLine([r.row, r.line, r.name, r.l, r.b, r.v, r.radius_arcsec, r.pos_err_arcsec, r.v_err_kms, r.line_width_kms, r.dist_kpc, r.dist_err_kpc, ...(orig ?? [])]);
+      const orig = (
+        typeof r.original === 'string' ? JSON.parse(r.original) : r.original
+      ) as string[];
+      out += csvLine([
+        r.row,
+        r.line,
+        r.name,
+        r.l,
+        r.b,
+        r.v,
+        r.radius_arcsec,
+        r.pos_err_arcsec,
+        r.v_err_kms,
+        r.line_width_kms,
+        r.dist_kpc,
+        r.dist_err_kpc,
+        ...(orig ?? []),
+      ]);
     }
     yield out;
     after = rows[rows.length - 1].row;

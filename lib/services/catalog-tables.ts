@@ -16,7 +16,8 @@ export function rowsTableName(catalogId: string, loading = false): string {
   return `catrows_${catalogId.replace(/-/g, '')}${loading ? '_load' : ''}`;
 }
 
-export const rowsTable = (catalogId: string, loading = false) => sql.raw(`\`${rowsTableName(catalogId, loading)}\``);
+export const rowsTable = (catalogId: string, loading = false) =>
+  sql.raw(`\`${rowsTableName(catalogId, loading)}\``);
 
 /** Canonical column list in load order (matches the TSV the ingest writes). */
 export const ROW_COLUMNS =

@@ -45,7 +45,8 @@ export type CatalogSummary = {
 
 /** A file-level problem of an upload as an HTTP answer saying what and where. */
 function fileError(e: IngestFileError): HttpError {
-  const status = e.code === 'ambiguous-position-columns' || e.code === 'no-position-columns' ? 422 : 400;
+  const status =
+    e.code === 'ambiguous-position-columns' || e.code === 'no-position-columns' ? 422 : 400;
   return new HttpError(status, e.code, e.message, e.details);
 }
 
@@ -85,7 +86,11 @@ export async function previewUpload(req: Request) {
  * mapping fits the columns), records the catalog and its ingest job, and returns at once.
  * A file that fails these checks leaves nothing behind.
  */
-export async function createCatalog(req: Request, projectId: string, userId: string): Promise<CatalogSummary> {
+export async function createCatalog(
+  req: Request,
+  projectId: string,
+  userId: string,
+): Promise<CatalogSummary> {
   const id = newId();
   const dir = uploadDir(id);
   const { fields, file } = await receiveUpload(req, dir);
@@ -103,13 +108,18 @@ export async function createCatalog(req: Request, projectId: string, userId: str
       }
       mapping = mappingSchema.parse(parsed);
     } else {
-      const suggestion = suggestMapping(preview.header, preview.rows.map((r) => r.values));
+      const suggestion = suggestMapping(
+        preview.header,
+        preview.rows.map((r) => r.values),
+      );
       mapping = mappingFromSuggestion(suggestion, preview.header);
     }
     // Building the normaliser checks that every mapped column exists in the file.
     makeBatchNormaliser(preview.header, mapping);
     await db.transaction(async (tx) => {
-      const [job] = await tx.insert(jobs).values({ kind: 'ingest', projectId, payload: { catalogId: id }, createdBy: userId });
+      const [job] = await tx
+        .insert(jobs)
+        .values({ kind: 'ingest', projectId, payload: { catalogId: id }, createdBy: userId });
       await tx.insert(catalogs).values({
         id,
         projectId,
@@ -139,7 +149,10 @@ const summaryColumns = {
   creatorName: users.name,
 };
 
-function toSummary(r: { c: typeof catalogs.$inferSelect; creatorName: string | null }): CatalogSummary {
+function toSummary(r: {
+  c: typeof catalogs.$inferSelect;
+  creatorName: string | null;
+}): CatalogSummary {
   const c = r.c;
   return {
     id: c.id,
@@ -172,14 +185,21 @@ export async function listCatalogs(projectId: string): Promise<CatalogSummary[]>
 }
 
 export async function getCatalog(id: string): Promise<CatalogSummary> {
-  const [r] = await db.select(summaryColumns).from(catalogs).leftJoin(users, eq(users.id, catalogs.createdBy)).where(eq(catalogs.id, id));
+  const [r] = await db
+    .select(summaryColumns)
+    .from(catalogs)
+    .leftJoin(users, eq(users.id, catalogs.createdBy))
+    .where(eq(catalogs.id, id));
   if (!r) throw notFound('Catalog');
   return toSummary(r);
 }
 
 /** The project a catalog belongs to (for the access check), or 404. */
 export async function catalogProject(id: string): Promise<string> {
-  const [r] = await db.select({ projectId: catalogs.projectId }).from(catalogs).where(eq(catalogs.id, id));
+  const [r] = await db
+    .select({ projectId: catalogs.projectId })
+    .from(catalogs)
+    .where(eq(catalogs.id, id));
   if (!r) throw notFound('Catalog');
   return r.projectId;
 }
@@ -196,7 +216,10 @@ export async function catalogState(id: string) {
 
 export async function getCatalogDetail(id: string) {
   const summary = await getCatalog(id);
-  const [c] = await db.select({ mapping: catalogs.mapping, columns: catalogs.columns }).from(catalogs).where(eq(catalogs.id, id));
+  const [c] = await db
+    .select({ mapping: catalogs.mapping, columns: catalogs.columns })
+    .from(catalogs)
+    .where(eq(catalogs.id, id));
   const rejected = await db
     .select({ line: catalogRejects.line, reason: catalogRejects.reason })
     .from(catalogRejects)

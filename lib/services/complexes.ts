@@ -52,7 +52,9 @@ export function complexJson(c: ComplexRow) {
     size: c.size,
     linkCount: c.linkCount,
     counts,
-    classes: Object.entries(counts).filter(([, n]) => n > 0).map(([k]) => k),
+    classes: Object.entries(counts)
+      .filter(([, n]) => n > 0)
+      .map(([k]) => k),
     l: c.l,
     b: c.b,
     v: c.v,
@@ -79,10 +81,13 @@ export async function complexesPage(runId: string, q: ComplexesQuery) {
   else if (q.review) where.push(eq(complexes.review, q.review));
   if (q.maxSepArcsec !== undefined) where.push(sql`${complexes.maxSepArcsec} <= ${q.maxSepArcsec}`);
   if (q.maxDvKms !== undefined) where.push(sql`${complexes.maxDvKms} <= ${q.maxDvKms}`);
-  if (q.minReliability !== undefined) where.push(sql`${complexes.reliability} >= ${q.minReliability}`);
+  if (q.minReliability !== undefined)
+    where.push(sql`${complexes.reliability} >= ${q.minReliability}`);
   if (q.q) {
     const like = `%${q.q.replace(/[%_\\]/g, (m) => `\\${m}`)}%`;
-    where.push(sql`${complexes.id} IN (SELECT complex_id FROM complex_members WHERE run_id = ${runId} AND name LIKE ${like})`);
+    where.push(
+      sql`${complexes.id} IN (SELECT complex_id FROM complex_members WHERE run_id = ${runId} AND name LIKE ${like})`,
+    );
   }
   const whereSql = and(...where)!;
   const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
@@ -98,8 +103,20 @@ export async function complexesPage(runId: string, q: ComplexesQuery) {
   const total =
     where.length === 1
       ? Number(summary.complexes ?? 0)
-      : Number((await db.select({ n: sql<number>`COUNT(*)` }).from(complexes).where(whereSql))[0].n);
-  return { complexes: rows.map((r) => complexJson({ ...r.c, reviewerName: r.reviewerName })), total, page: q.page, pageSize: q.pageSize };
+      : Number(
+          (
+            await db
+              .select({ n: sql<number>`COUNT(*)` })
+              .from(complexes)
+              .where(whereSql)
+          )[0].n,
+        );
+  return {
+    complexes: rows.map((r) => complexJson({ ...r.c, reviewerName: r.reviewerName })),
+    total,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
 }
 
 async function loadComplex(runId: string, complexId: number) {
@@ -124,7 +141,15 @@ export async function complexDetail(runId: string, complexId: number) {
   );
   const catIds = [...new Set(memberRows.map((m) => m.catalogId as string))];
   const cats = catIds.length
-    ? await db.select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind, columns: catalogs.columns }).from(catalogs).where(inArray(catalogs.id, catIds))
+    ? await db
+        .select({
+          id: catalogs.id,
+          name: catalogs.name,
+          kind: catalogs.kind,
+          columns: catalogs.columns,
+        })
+        .from(catalogs)
+        .where(inArray(catalogs.id, catIds))
     : [];
   const members = [];
   for (const cat of cats) {
@@ -137,7 +162,9 @@ export async function complexDetail(runId: string, complexId: number) {
     );
     for (const r of rows) {
       const values = (typeof r.original === 'string' ? JSON.parse(r.original) : []) as string[];
-      const original = Object.fromEntries((cat.columns ?? []).map((name, i) => [name, values[i] ?? '']));
+      const original = Object.fromEntries(
+        (cat.columns ?? []).map((name, i) => [name, values[i] ?? '']),
+      );
       members.push({ catalogId: cat.id, catalogName: cat.name, kind: cat.kind, ...r, original });
     }
   }
@@ -147,13 +174,26 @@ export async function complexDetail(runId: string, complexId: number) {
     [runId, complexId],
   );
   const history = await db
-    .select({ action: auditLog.action, detail: auditLog.detail, at: auditLog.at, userId: auditLog.userId, name: users.name })
+    .select({
+      action: auditLog.action,
+      detail: auditLog.detail,
+      at: auditLog.at,
+      userId: auditLog.userId,
+      name: users.name,
+    })
     .from(auditLog)
     .leftJoin(users, eq(users.id, auditLog.userId))
-    .where(and(eq(auditLog.action, 'complex.review'), eq(auditLog.subject, `${runId}:${complexId}`)))
+    .where(
+      and(eq(auditLog.action, 'complex.review'), eq(auditLog.subject, `${runId}:${complexId}`)),
+    )
     .orderBy(sql`${auditLog.at} DESC`);
   const [override] = await db
-    .select({ distKpc: distanceOverrides.distKpc, note: distanceOverrides.note, setAt: distanceOverrides.setAt, name: users.name })
+    .select({
+      distKpc: distanceOverrides.distKpc,
+      note: distanceOverrides.note,
+      setAt: distanceOverrides.setAt,
+      name: users.name,
+    })
     .from(distanceOverrides)
     .leftJoin(users, eq(users.id, distanceOverrides.setBy))
     .where(and(eq(distanceOverrides.runId, runId), eq(distanceOverrides.complexId, complexId)));
@@ -162,7 +202,14 @@ export async function complexDetail(runId: string, complexId: number) {
       ...complex,
       members,
       links: linkRows,
-      distanceOverride: override ? { distKpc: override.distKpc, note: override.note ?? '', by: override.name ?? '', at: override.setAt.toISOString() } : null,
+      distanceOverride: override
+        ? {
+            distKpc: override.distKpc,
+            note: override.note ?? '',
+            by: override.name ?? '',
+            at: override.setAt.toISOString(),
+          }
+        : null,
       history: history.map((h) => ({
         action: h.action,
         review: (h.detail as { review?: string } | null)?.review ?? null,
@@ -180,11 +227,21 @@ export const reviewSchema = z.object({
 });
 
 /** Records a review of a complex; who and when go to the audit log as well. */
-export async function reviewComplex(runId: string, complexId: number, userId: string, input: z.infer<typeof reviewSchema>) {
+export async function reviewComplex(
+  runId: string,
+  complexId: number,
+  userId: string,
+  input: z.infer<typeof reviewSchema>,
+) {
   const run = await requireDoneRun(runId);
   const res = await db
     .update(complexes)
-    .set({ review: input.review, reviewNote: input.note || null, reviewedBy: userId, reviewedAt: sql`NOW(3)` })
+    .set({
+      review: input.review,
+      reviewNote: input.note || null,
+      reviewedBy: userId,
+      reviewedAt: sql`NOW(3)`,
+    })
     .where(and(eq(complexes.runId, runId), eq(complexes.id, complexId)));
   if (res[0].affectedRows === 0) throw new HttpError(404, 'not_found', 'Complex was not found.');
   await db.insert(auditLog).values({

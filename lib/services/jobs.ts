@@ -7,8 +7,14 @@ export type JobKind = 'ingest' | 'link-run' | 'analysis';
 export type Job = typeof jobs.$inferSelect;
 
 /** Records a job for the worker; returns its id. */
-export async function enqueueJob(kind: JobKind, payload: Record<string, unknown>, opts: { projectId?: string; userId?: string } = {}) {
-  const [res] = await db.insert(jobs).values({ kind, payload, projectId: opts.projectId ?? null, createdBy: opts.userId ?? null });
+export async function enqueueJob(
+  kind: JobKind,
+  payload: Record<string, unknown>,
+  opts: { projectId?: string; userId?: string } = {},
+) {
+  const [res] = await db
+    .insert(jobs)
+    .values({ kind, payload, projectId: opts.projectId ?? null, createdBy: opts.userId ?? null });
   return Number(res.insertId);
 }
 
@@ -44,18 +50,37 @@ export async function claimJob(workerId: string): Promise<Job | null> {
 }
 
 /** Progress 0..1 doubles as the heartbeat; answers whether a cancel was requested. */
-export async function reportProgress(jobId: number, progress: number): Promise<{ cancel: boolean }> {
-  await db.update(jobs).set({ progress: Math.max(0, Math.min(1, progress)), heartbeatAt: sql`NOW(3)` }).where(eq(jobs.id, jobId));
-  const [j] = await db.select({ cancel: jobs.cancelRequested }).from(jobs).where(eq(jobs.id, jobId));
+export async function reportProgress(
+  jobId: number,
+  progress: number,
+): Promise<{ cancel: boolean }> {
+  await db
+    .update(jobs)
+    .set({ progress: Math.max(0, Math.min(1, progress)), heartbeatAt: sql`NOW(3)` })
+    .where(eq(jobs.id, jobId));
+  const [j] = await db
+    .select({ cancel: jobs.cancelRequested })
+    .from(jobs)
+    .where(eq(jobs.id, jobId));
   return { cancel: !!j?.cancel };
 }
 
 export async function finishJob(jobId: number) {
-  await db.update(jobs).set({ status: 'done', progress: 1, finishedAt: sql`NOW(3)` }).where(eq(jobs.id, jobId));
+  await db
+    .update(jobs)
+    .set({ status: 'done', progress: 1, finishedAt: sql`NOW(3)` })
+    .where(eq(jobs.id, jobId));
 }
 
-export async function failJob(jobId: number, error: string, status: 'failed' | 'cancelled' = 'failed') {
-  await db.update(jobs).set({ status, error: error.slice(0, 4000), finishedAt: sql`NOW(3)` }).where(eq(jobs.id, jobId));
+export async function failJob(
+  jobId: number,
+  error: string,
+  status: 'failed' | 'cancelled' = 'failed',
+) {
+  await db
+    .update(jobs)
+    .set({ status, error: error.slice(0, 4000), finishedAt: sql`NOW(3)` })
+    .where(eq(jobs.id, jobId));
 }
 
 export async function requestCancel(jobId: number) {
@@ -75,7 +100,12 @@ export async function recoverStaleJobs(staleSeconds: number, maxAttempts = 2) {
   const stale = await db
     .select({ id: jobs.id, attempts: jobs.attempts, kind: jobs.kind, payload: jobs.payload })
     .from(jobs)
-    .where(and(eq(jobs.status, 'running'), lt(jobs.heartbeatAt, sql`NOW(3) - INTERVAL ${staleSeconds} SECOND`)));
+    .where(
+      and(
+        eq(jobs.status, 'running'),
+        lt(jobs.heartbeatAt, sql`NOW(3) - INTERVAL ${staleSeconds} SECOND`),
+      ),
+    );
   const out: { job: Job; action: 'requeued' | 'failed'; reason: string }[] = [];
   for (const j of stale) {
     const [job] = await db.select().from(jobs).where(eq(jobs.id, j.id));
@@ -85,7 +115,10 @@ export async function recoverStaleJobs(staleSeconds: number, maxAttempts = 2) {
       await failJob(j.id, reason);
       out.push({ job, action: 'failed', reason });
     } else {
-      await db.update(jobs).set({ status: 'queued', lockedBy: null, progress: 0 }).where(and(eq(jobs.id, j.id), eq(jobs.status, 'running')));
+      await db
+        .update(jobs)
+        .set({ status: 'queued', lockedBy: null, progress: 0 })
+        .where(and(eq(jobs.id, j.id), eq(jobs.status, 'running')));
       out.push({ job, action: 'requeued', reason: 'worker stopped' });
     }
   }

@@ -18,7 +18,11 @@ import { loadTsv, tsvCell } from './bulk-load';
 import { rowsTableName } from './catalog-tables';
 import { runCatalogs, type LinkRunParams, type RunCatalog } from './link-runs';
 
-type LoadedCatalog = RunCatalog & { src: SourceArrays; rowNumber: Uint32Array; names: (string | null)[] };
+type LoadedCatalog = RunCatalog & {
+  src: SourceArrays;
+  rowNumber: Uint32Array;
+  names: (string | null)[];
+};
 
 /** Reads a ready catalog's canonical columns into flat typed arrays, in row order. */
 async function loadCatalog(c: RunCatalog): Promise<LoadedCatalog> {
@@ -63,7 +67,8 @@ function histogram(values: ArrayLike<number> & Iterable<number>, edges: number[]
   return { edges, counts };
 }
 
-const linspace = (a: number, b: number, n: number) => Array.from({ length: n + 1 }, (_, i) => +(a + ((b - a) * i) / n).toPrecision(6));
+const linspace = (a: number, b: number, n: number) =>
+  Array.from({ length: n + 1 }, (_, i) => +(a + ((b - a) * i) / n).toPrecision(6));
 
 type PairResult = {
   catA: number;
@@ -97,12 +102,19 @@ function centroid(ls: number[], bs: number[]) {
  * The run is marked `done` last, after everything is stored; on failure the caller removes what
  * was written ({@link clearRunResults}), so no half-written run is ever shown.
  */
-export async function executeLinkRun(runId: string, progress: (fraction: number) => Promise<void>, signal: AbortSignal) {
+export async function executeLinkRun(
+  runId: string,
+  progress: (fraction: number) => Promise<void>,
+  signal: AbortSignal,
+) {
   const started = Date.now();
   const [run] = await db.select().from(linkRuns).where(eq(linkRuns.id, runId));
   if (!run) throw new Error(`link run ${runId} no longer exists`);
   await clearRunResults(runId);
-  await db.update(linkRuns).set({ status: 'running', startedAt: sql`NOW(3)`, error: null }).where(eq(linkRuns.id, runId));
+  await db
+    .update(linkRuns)
+    .set({ status: 'running', startedAt: sql`NOW(3)`, error: null })
+    .where(eq(linkRuns.id, runId));
   const params = run.params as unknown as LinkRunParams;
   const chosen = await runCatalogs(run.projectId, run.catalogIds);
   const cats: LoadedCatalog[] = [];
@@ -116,9 +128,13 @@ export async function executeLinkRun(runId: string, progress: (fraction: number)
     missingVelocity: params.missingVelocity,
   };
   // Spread the chosen number of repeats over both signs: ±1°, ±2°, … (common practice).
-  const shiftsDeg = Array.from({ length: params.chanceTrials }, (_, k) => (k % 2 === 0 ? 1 : -1) * (Math.floor(k / 2) + 1));
+  const shiftsDeg = Array.from(
+    { length: params.chanceTrials },
+    (_, k) => (k % 2 === 0 ? 1 : -1) * (Math.floor(k / 2) + 1),
+  );
   const pairList: [number, number][] = [];
-  for (let i = 0; i < cats.length; i++) for (let j = i + 1; j < cats.length; j++) pairList.push([i, j]);
+  for (let i = 0; i < cats.length; i++)
+    for (let j = i + 1; j < cats.length; j++) pairList.push([i, j]);
   const results: PairResult[] = [];
   let lastReported = 0;
   for (let p = 0; p < pairList.length; p++) {
@@ -133,7 +149,11 @@ export async function executeLinkRun(runId: string, progress: (fraction: number)
       }
     };
     if (shiftsDeg.length) {
-      const est = await estimateChanceLinks(cats[i].src, cats[j].src, matchParams, { shiftsDeg, onProgress, signal });
+      const est = await estimateChanceLinks(cats[i].src, cats[j].src, matchParams, {
+        shiftsDeg,
+        onProgress,
+        signal,
+      });
       results.push({
         catA: i,
         catB: j,
@@ -144,8 +164,19 @@ export async function executeLinkRun(runId: string, progress: (fraction: number)
         overall: Number.isFinite(est.overallReliability) ? est.overallReliability : null,
       });
     } else {
-      const links = await matchCatalogs(cats[i].src, cats[j].src, matchParams, { onProgress, signal });
-      results.push({ catA: i, catB: j, links, reliability: null, expected: null, stdErr: null, overall: null });
+      const links = await matchCatalogs(cats[i].src, cats[j].src, matchParams, {
+        onProgress,
+        signal,
+      });
+      results.push({
+        catA: i,
+        catB: j,
+        links,
+        reliability: null,
+        expected: null,
+        stdErr: null,
+        overall: null,
+      });
     }
     await progress(base + span);
   }
@@ -177,17 +208,41 @@ export async function executeLinkRun(runId: string, progress: (fraction: number)
       const dv = r.links.dvKms[k];
       const rel = r.reliability ? r.reliability[k] : NaN;
       maxSep[c] = Math.max(maxSep[c], sep);
-      if (Number.isFinite(dv)) maxDv[c] = Number.isFinite(maxDv[c]) ? Math.max(maxDv[c], Math.abs(dv)) : Math.abs(dv);
-      if (Number.isFinite(rel)) minRel[c] = Number.isFinite(minRel[c]) ? Math.min(minRel[c], rel) : rel;
+      if (Number.isFinite(dv))
+        maxDv[c] = Number.isFinite(maxDv[c]) ? Math.max(maxDv[c], Math.abs(dv)) : Math.abs(dv);
+      if (Number.isFinite(rel))
+        minRel[c] = Number.isFinite(minRel[c]) ? Math.min(minRel[c], rel) : rel;
       allSep.push(sep);
       allDv.push(dv);
-      const radius = pairRadiusArcsec(params.radius, a.src.radiusArcsec![ia], b.src.radiusArcsec![ib], a.src.posErrArcsec![ia], b.src.posErrArcsec![ib]);
+      const radius = pairRadiusArcsec(
+        params.radius,
+        a.src.radiusArcsec![ia],
+        b.src.radiusArcsec![ib],
+        a.src.posErrArcsec![ia],
+        b.src.posErrArcsec![ib],
+      );
       linkLines.push(
-        [runId, linkId++, a.id, a.rowNumber[ia], b.id, b.rowNumber[ib], sep, tsvCell(dv), radius, tsvCell(rel), c].join('\t'),
+        [
+          runId,
+          linkId++,
+          a.id,
+          a.rowNumber[ia],
+          b.id,
+          b.rowNumber[ib],
+          sep,
+          tsvCell(dv),
+          radius,
+          tsvCell(rel),
+          c,
+        ].join('\t'),
       );
     }
   }
-  await loadTsv('links', 'run_id, id, catalog_a, row_a, catalog_b, row_b, sep_arcsec, dv_kms, radius_arcsec, reliability, complex_id', linkLines);
+  await loadTsv(
+    'links',
+    'run_id, id, catalog_a, row_a, catalog_b, row_b, sep_arcsec, dv_kms, radius_arcsec, reliability, complex_id',
+    linkLines,
+  );
   await progress(0.9);
 
   const complexLines: string[] = [];
@@ -212,26 +267,44 @@ export async function executeLinkRun(runId: string, progress: (fraction: number)
         vN++;
       }
       name ??= cat.names[i];
-      memberLines.push([runId, c, cat.id, cat.rowNumber[i], tsvCell(cat.names[i]?.slice(0, 128) ?? null)].join('\t'));
+      memberLines.push(
+        [runId, c, cat.id, cat.rowNumber[i], tsvCell(cat.names[i]?.slice(0, 128) ?? null)].join(
+          '\t',
+        ),
+      );
     }
     const ctr = centroid(ls, bs);
     complexLines.push(
       [
-        runId, c, complexes.size[c], complexes.linkCount[c],
+        runId,
+        c,
+        complexes.size[c],
+        complexes.linkCount[c],
         ...kindKeys.map((k) => counts[k]),
-        ctr.l, ctr.b, tsvCell(vN ? vSum / vN : null), maxSep[c], tsvCell(maxDv[c]), tsvCell(minRel[c]),
-        complexes.overCap[c], tsvCell(name?.slice(0, 128) ?? null),
+        ctr.l,
+        ctr.b,
+        tsvCell(vN ? vSum / vN : null),
+        maxSep[c],
+        tsvCell(maxDv[c]),
+        tsvCell(minRel[c]),
+        complexes.overCap[c],
+        tsvCell(name?.slice(0, 128) ?? null),
       ].join('\t'),
     );
   }
-  await loadTsv('complexes', 'run_id, id, size, link_count, n_hi, n_co, n_hii, n_ob, n_other, l, b, v, max_sep_arcsec, max_dv_kms, reliability, over_cap, name', complexLines);
+  await loadTsv(
+    'complexes',
+    'run_id, id, size, link_count, n_hi, n_co, n_hii, n_ob, n_other, l, b, v, max_sep_arcsec, max_dv_kms, reliability, over_cap, name',
+    complexLines,
+  );
   await loadTsv('complex_members', 'run_id, complex_id, catalog_id, `row`, name', memberLines);
   await progress(0.98);
 
   // Loops, not Math.max(...xs): a spread of a million links overflows the call stack.
   const maxOf = (xs: ArrayLike<number>, floor: number) => {
     let m = floor;
-    for (let i = 0; i < xs.length; i++) if (Number.isFinite(xs[i]) && Math.abs(xs[i]) > m) m = Math.abs(xs[i]);
+    for (let i = 0; i < xs.length; i++)
+      if (Number.isFinite(xs[i]) && Math.abs(xs[i]) > m) m = Math.abs(xs[i]);
     return m;
   };
   const maxRadius = params.radius.mode === 'fixed' ? params.radius.arcsec : maxOf(allSep, 1);
@@ -264,7 +337,10 @@ export async function executeLinkRun(runId: string, progress: (fraction: number)
     complexSizes: histogram(sizes, [1.5, 2.5, 3.5, 4.5, 5.5, 10.5, 20.5, maxOf(sizes, 21.5)]),
   };
   // Marked done last: until this statement the run shows as running, its results unseen.
-  await db.update(linkRuns).set({ status: 'done', progress: 1, summary, finishedAt: sql`NOW(3)` }).where(eq(linkRuns.id, runId));
+  await db
+    .update(linkRuns)
+    .set({ status: 'done', progress: 1, summary, finishedAt: sql`NOW(3)` })
+    .where(eq(linkRuns.id, runId));
   await notifyIfLong(runId, started, 'finished', `${linkId} links in ${nC} complexes.`);
 }
 
@@ -277,26 +353,45 @@ export async function clearRunResults(runId: string) {
 
 export async function failLinkRun(runId: string, reason: string, cancelled: boolean) {
   await clearRunResults(runId);
-  const [run] = await db.select({ startedAt: linkRuns.startedAt }).from(linkRuns).where(eq(linkRuns.id, runId));
+  const [run] = await db
+    .select({ startedAt: linkRuns.startedAt })
+    .from(linkRuns)
+    .where(eq(linkRuns.id, runId));
   await db
     .update(linkRuns)
-    .set({ status: cancelled ? 'cancelled' : 'failed', error: reason.slice(0, 2000), finishedAt: sql`NOW(3)` })
+    .set({
+      status: cancelled ? 'cancelled' : 'failed',
+      error: reason.slice(0, 2000),
+      finishedAt: sql`NOW(3)`,
+    })
     .where(eq(linkRuns.id, runId));
-  if (run?.startedAt) await notifyIfLong(runId, run.startedAt.getTime(), cancelled ? 'was cancelled' : 'failed', reason);
+  if (run?.startedAt)
+    await notifyIfLong(
+      runId,
+      run.startedAt.getTime(),
+      cancelled ? 'was cancelled' : 'failed',
+      reason,
+    );
 }
 
 /** E-mails whoever started a run that took over a minute (RUN_NOTICE_AFTER_SECONDS), unless they opted out. */
 async function notifyIfLong(runId: string, startedMs: number, status: string, summary: string) {
   if (Date.now() - startedMs < env().RUN_NOTICE_AFTER_SECONDS * 1000) return;
   const [x] = await db
-    .select({ email: users.email, notify: users.notifyRunEmails, projectName: projects.name, projectId: projects.id })
+    .select({
+      email: users.email,
+      notify: users.notifyRunEmails,
+      projectName: projects.name,
+      projectId: projects.id,
+    })
     .from(linkRuns)
     .innerJoin(users, eq(users.id, linkRuns.createdBy))
     .innerJoin(projects, eq(projects.id, linkRuns.projectId))
     .where(eq(linkRuns.id, runId));
   if (!x || !x.notify) return;
   const link = `${env().NEXTAUTH_URL}/projects/${x.projectId}/link-runs/${runId}`;
-  await sendMail({ to: x.email, ...runFinishedMail({ link, projectName: x.projectName, status, summary }) }).catch((e) =>
-    console.error('[mail] run notice not sent:', e instanceof Error ? e.message : e),
-  );
+  await sendMail({
+    to: x.email,
+    ...runFinishedMail({ link, projectName: x.projectName, status, summary }),
+  }).catch((e) => console.error('[mail] run notice not sent:', e instanceof Error ? e.message : e));
 }

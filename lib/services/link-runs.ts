@@ -8,10 +8,17 @@ import { requestCancel } from './jobs';
 
 /** The link-run body of API.md, with the options a careful user needs made explicit. */
 export const linkRunSchema = z.object({
-  catalogIds: z.array(z.string()).min(2, 'Choose at least two catalogs.').max(8, 'Choose at most eight catalogs.'),
+  catalogIds: z
+    .array(z.string())
+    .min(2, 'Choose at least two catalogs.')
+    .max(8, 'Choose at most eight catalogs.'),
   radius: z.discriminatedUnion('mode', [
     z.object({ mode: z.literal('fixed'), arcsec: z.number().min(0).max(36_000) }),
-    z.object({ mode: z.literal('scaled'), factor: z.number().positive().max(100), minArcsec: z.number().min(0).max(36_000) }),
+    z.object({
+      mode: z.literal('scaled'),
+      factor: z.number().positive().max(100),
+      minArcsec: z.number().min(0).max(36_000),
+    }),
   ]),
   velocity: z.discriminatedUnion('mode', [
     z.object({ mode: z.literal('fixed'), kms: z.number().min(0).max(1000) }),
@@ -31,15 +38,33 @@ export type RunCatalog = { id: string; name: string; kind: string; rowCount: num
 
 /** The chosen catalogs, in the order given; each must be a ready catalog of this project. */
 export async function runCatalogs(projectId: string, ids: string[]): Promise<RunCatalog[]> {
-  if (new Set(ids).size !== ids.length) throw new HttpError(400, 'duplicate_catalog', 'A catalog is chosen twice.');
+  if (new Set(ids).size !== ids.length)
+    throw new HttpError(400, 'duplicate_catalog', 'A catalog is chosen twice.');
   const rows = await db
-    .select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind, status: catalogs.status, rowCount: catalogs.rowCount, projectId: catalogs.projectId })
+    .select({
+      id: catalogs.id,
+      name: catalogs.name,
+      kind: catalogs.kind,
+      status: catalogs.status,
+      rowCount: catalogs.rowCount,
+      projectId: catalogs.projectId,
+    })
     .from(catalogs)
     .where(inArray(catalogs.id, ids));
   return ids.map((id, i) => {
     const c = rows.find((r) => r.id === id);
-    if (!c || c.projectId !== projectId) throw new HttpError(400, 'unknown_catalog', `catalogIds[${i}]: no such catalog in this project.`);
-    if (c.status !== 'ready') throw new HttpError(409, 'catalog_not_ready', `catalogIds[${i}]: catalog "${c.name}" is ${c.status}, not ready.`);
+    if (!c || c.projectId !== projectId)
+      throw new HttpError(
+        400,
+        'unknown_catalog',
+        `catalogIds[${i}]: no such catalog in this project.`,
+      );
+    if (c.status !== 'ready')
+      throw new HttpError(
+        409,
+        'catalog_not_ready',
+        `catalogIds[${i}]: catalog "${c.name}" is ${c.status}, not ready.`,
+      );
     return { id: c.id, name: c.name, kind: c.kind, rowCount: c.rowCount };
   });
 }
@@ -50,8 +75,18 @@ export async function startLinkRun(projectId: string, userId: string, params: Li
   const id = newId();
   const name = params.name || `${chosen.map((c) => c.name).join(' × ')}`.slice(0, 200);
   await db.transaction(async (tx) => {
-    const [job] = await tx.insert(jobs).values({ kind: 'link-run', projectId, payload: { runId: id }, createdBy: userId });
-    await tx.insert(linkRuns).values({ id, projectId, name, params: { ...params, name }, catalogIds: params.catalogIds, jobId: Number(job.insertId), createdBy: userId });
+    const [job] = await tx
+      .insert(jobs)
+      .values({ kind: 'link-run', projectId, payload: { runId: id }, createdBy: userId });
+    await tx.insert(linkRuns).values({
+      id,
+      projectId,
+      name,
+      params: { ...params, name },
+      catalogIds: params.catalogIds,
+      jobId: Number(job.insertId),
+      createdBy: userId,
+    });
   });
   return { id, status: 'queued' as const };
 }
@@ -62,7 +97,10 @@ export async function startLinkRun(projectId: string, userId: string, params: Li
  */
 export async function estimateLinkRun(projectId: string, params: LinkRunParams) {
   const chosen = await runCatalogs(projectId, params.catalogIds);
-  const radiusArcsec = params.radius.mode === 'fixed' ? params.radius.arcsec : Math.max(params.radius.minArcsec, 60 * params.radius.factor);
+  const radiusArcsec =
+    params.radius.mode === 'fixed'
+      ? params.radius.arcsec
+      : Math.max(params.radius.minArcsec, 60 * params.radius.factor);
   const capSr = Math.PI * (radiusArcsec / 206_264.806) ** 2;
   const pairs = [];
   let candidates = 0;
@@ -80,7 +118,15 @@ export async function estimateLinkRun(projectId: string, params: LinkRunParams) 
   const repeats = 1 + params.chanceTrials;
   const workUnits = repeats * (sources + candidates);
   // About two million sources or candidates a second on this class of machine (bench:match).
-  return { estimate: { sources, pairs, chanceRepeats: params.chanceTrials, workUnits, roughSeconds: Math.max(1, Math.round(workUnits / 2e6 + sources / 2e5)) } };
+  return {
+    estimate: {
+      sources,
+      pairs,
+      chanceRepeats: params.chanceTrials,
+      workUnits,
+      roughSeconds: Math.max(1, Math.round(workUnits / 2e6 + sources / 2e5)),
+    },
+  };
 }
 
 export type RunJson = {
@@ -103,15 +149,23 @@ type CatalogNames = Map<string, { id: string; name: string; kind: string }>;
 
 /** The names and classes of a project's catalogs, read once per request (not once per run). */
 async function catalogNames(projectId: string): Promise<CatalogNames> {
-  const cats = await db.select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind }).from(catalogs).where(eq(catalogs.projectId, projectId));
+  const cats = await db
+    .select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind })
+    .from(catalogs)
+    .where(eq(catalogs.projectId, projectId));
   return new Map(cats.map((c) => [c.id, c]));
 }
 
-type RunRow = { r: typeof linkRuns.$inferSelect; creatorName: string | null; jobProgress: number | null };
+type RunRow = {
+  r: typeof linkRuns.$inferSelect;
+  creatorName: string | null;
+  jobProgress: number | null;
+};
 
 function toRunJson({ r, creatorName, jobProgress }: RunRow, cats: CatalogNames): RunJson {
   // A running job reports progress on its own row; the run's copy is final only once done.
-  const progress = r.status === 'done' ? 1 : r.status === 'running' ? (jobProgress ?? r.progress) : r.progress;
+  const progress =
+    r.status === 'done' ? 1 : r.status === 'running' ? (jobProgress ?? r.progress) : r.progress;
   return {
     id: r.id,
     projectId: r.projectId,
@@ -119,8 +173,10 @@ function toRunJson({ r, creatorName, jobProgress }: RunRow, cats: CatalogNames):
     status: r.status,
     progress,
     params: r.params,
-    catalogs: r.catalogIds.map((id) => cats.get(id) ?? { id, name: '(deleted catalog)', kind: 'other' }),
-    summary: r.status === 'done' ? r.summary ?? null : null,
+    catalogs: r.catalogIds.map(
+      (id) => cats.get(id) ?? { id, name: '(deleted catalog)', kind: 'other' },
+    ),
+    summary: r.status === 'done' ? (r.summary ?? null) : null,
     error: r.error,
     createdAt: r.createdAt.toISOString(),
     startedAt: r.startedAt?.toISOString() ?? null,
@@ -156,7 +212,10 @@ export async function getRun(runId: string): Promise<RunJson> {
 
 /** The project of a run, for the access check (404 when there is no such run). */
 export async function runProject(runId: string): Promise<string> {
-  const [r] = await db.select({ projectId: linkRuns.projectId }).from(linkRuns).where(eq(linkRuns.id, runId));
+  const [r] = await db
+    .select({ projectId: linkRuns.projectId })
+    .from(linkRuns)
+    .where(eq(linkRuns.id, runId));
   if (!r) throw notFound('Link run');
   return r.projectId;
 }
@@ -164,20 +223,36 @@ export async function runProject(runId: string): Promise<string> {
 export async function requireDoneRun(runId: string) {
   const [r] = await db.select().from(linkRuns).where(eq(linkRuns.id, runId));
   if (!r) throw notFound('Link run');
-  if (r.status !== 'done') throw new HttpError(409, 'run_not_done', `The link run is ${r.status}; its results exist once it is done.`);
+  if (r.status !== 'done')
+    throw new HttpError(
+      409,
+      'run_not_done',
+      `The link run is ${r.status}; its results exist once it is done.`,
+    );
   return r;
 }
 
 export async function cancelRun(runId: string) {
   const [r] = await db.select().from(linkRuns).where(eq(linkRuns.id, runId));
   if (!r) throw notFound('Link run');
-  if (r.status !== 'queued' && r.status !== 'running') throw new HttpError(409, 'not_running', `The link run is already ${r.status}.`);
+  if (r.status !== 'queued' && r.status !== 'running')
+    throw new HttpError(409, 'not_running', `The link run is already ${r.status}.`);
   if (r.jobId) {
     await requestCancel(r.jobId);
     // A queued job is cancelled at once; a running one stops at its next progress report.
-    const res = await db.update(jobs).set({ status: 'cancelled', finishedAt: sql`NOW(3)` }).where(and(eq(jobs.id, r.jobId), eq(jobs.status, 'queued')));
+    const res = await db
+      .update(jobs)
+      .set({ status: 'cancelled', finishedAt: sql`NOW(3)` })
+      .where(and(eq(jobs.id, r.jobId), eq(jobs.status, 'queued')));
     if (res[0].affectedRows) {
-      await db.update(linkRuns).set({ status: 'cancelled', error: 'Cancelled before it started.', finishedAt: sql`NOW(3)` }).where(eq(linkRuns.id, runId));
+      await db
+        .update(linkRuns)
+        .set({
+          status: 'cancelled',
+          error: 'Cancelled before it started.',
+          finishedAt: sql`NOW(3)`,
+        })
+        .where(eq(linkRuns.id, runId));
     }
   }
 }
@@ -190,12 +265,20 @@ export async function compareRuns(runA: string, runB: string) {
     const [[r]] = (await db.execute(q)) as unknown as [[{ n: number }]];
     return Number(r.n);
   };
-  const key = (x: string, y: string) => sql.raw(`${x}.catalog_a = ${y}.catalog_a AND ${x}.row_a = ${y}.row_a AND ${x}.catalog_b = ${y}.catalog_b AND ${x}.row_b = ${y}.row_b`);
-  const common = await count(sql`SELECT COUNT(*) AS n FROM links x JOIN links y ON ${key('x', 'y')} WHERE x.run_id = ${runA} AND y.run_id = ${runB}`);
+  const key = (x: string, y: string) =>
+    sql.raw(
+      `${x}.catalog_a = ${y}.catalog_a AND ${x}.row_a = ${y}.row_a AND ${x}.catalog_b = ${y}.catalog_b AND ${x}.row_b = ${y}.row_b`,
+    );
+  const common = await count(
+    sql`SELECT COUNT(*) AS n FROM links x JOIN links y ON ${key('x', 'y')} WHERE x.run_id = ${runA} AND y.run_id = ${runB}`,
+  );
   const sample = async (from: string, other: string) => {
-    const [rows] = (await db.execute(sql`SELECT x.catalog_a AS catalogA, x.row_a AS rowA, x.catalog_b AS catalogB, x.row_b AS rowB, x.sep_arcsec AS sepArcsec, x.dv_kms AS dvKms
+    const [rows] =
+      (await db.execute(sql`SELECT x.catalog_a AS catalogA, x.row_a AS rowA, x.catalog_b AS catalogB, x.row_b AS rowB, x.sep_arcsec AS sepArcsec, x.dv_kms AS dvKms
       FROM links x LEFT JOIN links y ON y.run_id = ${other} AND ${key('x', 'y')}
-      WHERE x.run_id = ${from} AND y.id IS NULL ORDER BY x.id LIMIT 20`)) as unknown as [Record<string, unknown>[]];
+      WHERE x.run_id = ${from} AND y.id IS NULL ORDER BY x.id LIMIT 20`)) as unknown as [
+        Record<string, unknown>[],
+      ];
     return rows;
   };
   const sa = (a.summary ?? {}) as { links?: number; complexes?: number };

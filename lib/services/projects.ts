@@ -55,9 +55,17 @@ export async function createProject(
 ): Promise<ProjectSummary> {
   const id = newId();
   await db.transaction(async (tx) => {
-    await tx.insert(projects).values({ id, name: input.name, description: input.description ?? null, createdBy: userId, settings: {} });
+    await tx.insert(projects).values({
+      id,
+      name: input.name,
+      description: input.description ?? null,
+      createdBy: userId,
+      settings: {},
+    });
     await tx.insert(projectMembers).values({ projectId: id, userId, role: 'owner' });
-    await tx.insert(auditLog).values({ projectId: id, userId, action: 'project.create', subject: id });
+    await tx
+      .insert(auditLog)
+      .values({ projectId: id, userId, action: 'project.create', subject: id });
   });
   return getProject(id, 'owner');
 }
@@ -69,7 +77,10 @@ export async function getProject(id: string, role: ProjectRole): Promise<Project
 }
 
 /** The caller's role in a project, or null when not a member (or no such project). */
-export async function roleInProject(projectId: string, userId: string): Promise<ProjectRole | null> {
+export async function roleInProject(
+  projectId: string,
+  userId: string,
+): Promise<ProjectRole | null> {
   const [m] = await db
     .select({ role: projectMembers.role })
     .from(projectMembers)
@@ -92,7 +103,13 @@ export async function updateProject(
   }
   if (Object.keys(set).length) {
     await db.update(projects).set(set).where(eq(projects.id, id));
-    await db.insert(auditLog).values({ projectId: id, userId, action: 'project.update', subject: id, detail: { fields: Object.keys(set) } });
+    await db.insert(auditLog).values({
+      projectId: id,
+      userId,
+      action: 'project.update',
+      subject: id,
+      detail: { fields: Object.keys(set) },
+    });
   }
   return getProject(id, role);
 }

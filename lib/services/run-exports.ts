@@ -37,16 +37,36 @@ interface Table {
   chunkRows: number;
 }
 
-const col = (name: string, sql: string, kind: CsvSqlKind, extra: Partial<VotableField> = {}): Column => ({
-  field: { name, datatype: kind === 'text' || kind === 'time' || kind === 'raw' ? 'char' : kind === 'boolean' ? 'boolean' : 'double', ...extra },
+const col = (
+  name: string,
+  sql: string,
+  kind: CsvSqlKind,
+  extra: Partial<VotableField> = {},
+): Column => ({
+  field: {
+    name,
+    datatype:
+      kind === 'text' || kind === 'time' || kind === 'raw'
+        ? 'char'
+        : kind === 'boolean'
+          ? 'boolean'
+          : 'double',
+    ...extra,
+  },
   sql,
   kind,
 });
-const intCol = (name: string, sql: string, extra: Partial<VotableField> = {}): Column => ({ field: { name, datatype: 'int', ...extra }, sql, kind: 'number' });
+const intCol = (name: string, sql: string, extra: Partial<VotableField> = {}): Column => ({
+  field: { name, datatype: 'int', ...extra },
+  sql,
+  kind: 'number',
+});
 
 /** The segment of `from` between the keys `lo` and `hi`, or nothing when there are no rows. */
 function segment(from: string, values: unknown[], key: string, range: RowDataPacket): Segment[] {
-  return range.lo === null ? [] : [{ from, values, key, lo: Number(range.lo), hi: Number(range.hi) }];
+  return range.lo === null
+    ? []
+    : [{ from, values, key, lo: Number(range.lo), hi: Number(range.hi) }];
 }
 
 const sourceColumns = (alias: 'a' | 'b'): Column[] => [
@@ -65,7 +85,9 @@ async function linksTable(runId: string): Promise<Table> {
     col('separation_arcsec', 'l.sep_arcsec', 'number', { unit: 'arcsec', ucd: 'pos.angDistance' }),
     col('delta_v_kms', 'l.dv_kms', 'number', { unit: 'km/s', description: 'v_LSR(B) − v_LSR(A)' }),
     intCol('complex_id', 'l.complex_id', { ucd: 'meta.id' }),
-    col('reliability', 'l.reliability', 'number', { description: '1 − chance/real links at this separation' }),
+    col('reliability', 'l.reliability', 'number', {
+      description: '1 − chance/real links at this separation',
+    }),
     col('match_radius_arcsec', 'l.radius_arcsec', 'number', { unit: 'arcsec' }),
     ...sourceColumns('a'),
     ...sourceColumns('b'),
@@ -95,19 +117,40 @@ async function complexesTable(runId: string): Promise<Table> {
     intCol('n_hii', 'c.n_hii'),
     intCol('n_ob', 'c.n_ob'),
     intCol('n_other', 'c.n_other'),
-    col('l_deg', 'c.l', 'number', { unit: 'deg', ucd: 'pos.galactic.lon', description: 'centroid' }),
-    col('b_deg', 'c.b', 'number', { unit: 'deg', ucd: 'pos.galactic.lat', description: 'centroid' }),
-    col('v_lsr_kms', 'c.v', 'number', { unit: 'km/s', ucd: 'spect.dopplerVeloc', description: 'mean of members with a velocity' }),
+    col('l_deg', 'c.l', 'number', {
+      unit: 'deg',
+      ucd: 'pos.galactic.lon',
+      description: 'centroid',
+    }),
+    col('b_deg', 'c.b', 'number', {
+      unit: 'deg',
+      ucd: 'pos.galactic.lat',
+      description: 'centroid',
+    }),
+    col('v_lsr_kms', 'c.v', 'number', {
+      unit: 'km/s',
+      ucd: 'spect.dopplerVeloc',
+      description: 'mean of members with a velocity',
+    }),
     col('max_separation_arcsec', 'c.max_sep_arcsec', 'number', { unit: 'arcsec' }),
     col('max_abs_delta_v_kms', 'c.max_dv_kms', 'number', { unit: 'km/s' }),
-    col('reliability', 'c.reliability', 'number', { description: 'lowest reliability of its links' }),
+    col('reliability', 'c.reliability', 'number', {
+      description: 'lowest reliability of its links',
+    }),
     col('over_cap', 'c.over_cap', 'boolean'),
     col('review', 'c.review', 'text'),
     col('review_note', 'c.review_note', 'text'),
     col('reviewed_at', 'c.reviewed_at', 'time'),
   ];
-  const [[range]] = await pool().query<RowDataPacket[]>('SELECT MIN(id) AS lo, MAX(id) AS hi FROM complexes WHERE run_id = ?', [runId]);
-  return { columns, segments: segment('complexes c WHERE c.run_id = ?', [runId], 'c.id', range), chunkRows: 2_000 };
+  const [[range]] = await pool().query<RowDataPacket[]>(
+    'SELECT MIN(id) AS lo, MAX(id) AS hi FROM complexes WHERE run_id = ?',
+    [runId],
+  );
+  return {
+    columns,
+    segments: segment('complexes c WHERE c.run_id = ?', [runId], 'c.id', range),
+    chunkRows: 2_000,
+  };
 }
 
 /** Every source of the run's catalogs with its complex (empty when it has no link). */
@@ -117,7 +160,9 @@ async function sourcesTable(runId: string, catalogIds: string[]): Promise<Table>
     // The one-row `k` carries the catalog id into every line (rowsTableName checked it is a UUID).
     const from = `\`${rowsTableName(cat)}\` s JOIN (SELECT '${cat}' AS id) k
       LEFT JOIN complex_members m ON m.run_id = ? AND m.catalog_id = k.id AND m.\`row\` = s.\`row\` WHERE TRUE`;
-    const [[range]] = await pool().query<RowDataPacket[]>(`SELECT MIN(\`row\`) AS lo, MAX(\`row\`) AS hi FROM \`${rowsTableName(cat)}\``);
+    const [[range]] = await pool().query<RowDataPacket[]>(
+      `SELECT MIN(\`row\`) AS lo, MAX(\`row\`) AS hi FROM \`${rowsTableName(cat)}\``,
+    );
     segments.push(...segment(from, [runId], 's.`row`', range));
   }
   const columns: Column[] = [
@@ -144,13 +189,17 @@ async function table(runId: string, shape: ExportShape): Promise<Table> {
  * being read while the caller consumes this one: the database works on one core while Node
  * writes the response on the other.
  */
-async function* ranges<T>(t: Table, fetch: (s: Segment, lo: number, hi: number) => Promise<T>): AsyncGenerator<T> {
+async function* ranges<T>(
+  t: Table,
+  fetch: (s: Segment, lo: number, hi: number) => Promise<T>,
+): AsyncGenerator<T> {
   const todo = t.segments.flatMap((s) => {
     const out: [Segment, number][] = [];
     for (let lo = s.lo; lo <= s.hi; lo += t.chunkRows) out.push([s, lo]);
     return out;
   });
-  const read = (i: number) => (i < todo.length ? fetch(todo[i][0], todo[i][1], todo[i][1] + t.chunkRows) : undefined);
+  const read = (i: number) =>
+    i < todo.length ? fetch(todo[i][0], todo[i][1], todo[i][1] + t.chunkRows) : undefined;
   let pending = read(0);
   for (let i = 0; pending; i++) {
     const ahead = read(i + 1);
@@ -170,7 +219,10 @@ const MAX_CHUNK_BYTES = 256 * 1024 * 1024;
  * A run's links, complexes or sources as CSV: the header as text, then one piece of UTF-8 per
  * chunk of rows, each assembled by MariaDB (see lib/export/csv-sql.ts).
  */
-export async function* runCsv(runId: string, shape: ExportShape): AsyncGenerator<string | Uint8Array> {
+export async function* runCsv(
+  runId: string,
+  shape: ExportShape,
+): AsyncGenerator<string | Uint8Array> {
   const t = await table(runId, shape);
   yield csvLine(t.columns.map((c) => c.field.name));
   const line = csvLineSql(t.columns);
@@ -181,7 +233,8 @@ export async function* runCsv(runId: string, shape: ExportShape): AsyncGenerator
       [...s.values, lo, hi],
     );
     const text = r.text as Buffer | null;
-    if (text && text.length >= MAX_CHUNK_BYTES) throw new Error(`export chunk of ${shape} from ${s.key} = ${lo} is too large to write`);
+    if (text && text.length >= MAX_CHUNK_BYTES)
+      throw new Error(`export chunk of ${shape} from ${s.key} = ${lo} is too large to write`);
     return text;
   })) {
     if (piece?.length) yield piece;
@@ -193,7 +246,11 @@ async function* tableRows(t: Table): AsyncGenerator<unknown[]> {
   const select = t.columns.map((c) => c.sql).join(', ');
   const kinds = t.columns.map((c) => c.kind);
   for await (const chunk of ranges(t, async (s, lo, hi) => {
-    const [rows] = await pool().query({ sql: `SELECT ${select} FROM ${rangeWhere(s)} ORDER BY ${s.key}`, values: [...s.values, lo, hi], rowsAsArray: true });
+    const [rows] = await pool().query({
+      sql: `SELECT ${select} FROM ${rangeWhere(s)} ORDER BY ${s.key}`,
+      values: [...s.values, lo, hi],
+      rowsAsArray: true,
+    });
     return rows as unknown as unknown[][];
   })) {
     for (const r of chunk) {
@@ -207,7 +264,10 @@ async function* tableRows(t: Table): AsyncGenerator<unknown[]> {
 }
 
 /** The same tables as VOTable 1.4 TABLEDATA. */
-export async function runVotable(runId: string, shape: ExportShape): Promise<AsyncGenerator<string>> {
+export async function runVotable(
+  runId: string,
+  shape: ExportShape,
+): Promise<AsyncGenerator<string>> {
   const t = await table(runId, shape);
   return votableStream({
     resourceName: `lanewise-link-run-${runId}`,
@@ -221,17 +281,39 @@ export async function runVotable(runId: string, shape: ExportShape): Promise<Asy
 /** Everything needed to reproduce and cite a run: parameters, versions and references. */
 export async function runMethods(runId: string) {
   const run = await requireDoneRun(runId);
-  const cats = await db.select({ id: catalogs.id, name: catalogs.name, kind: catalogs.kind, fileName: catalogs.fileName, rowCount: catalogs.rowCount, mapping: catalogs.mapping }).from(catalogs).where(inArray(catalogs.id, run.catalogIds));
+  const cats = await db
+    .select({
+      id: catalogs.id,
+      name: catalogs.name,
+      kind: catalogs.kind,
+      fileName: catalogs.fileName,
+      rowCount: catalogs.rowCount,
+      mapping: catalogs.mapping,
+    })
+    .from(catalogs)
+    .where(inArray(catalogs.id, run.catalogIds));
   const deps = pkg.dependencies as Record<string, string>;
   return {
-    run: { id: run.id, name: run.name, createdAt: run.createdAt.toISOString(), finishedAt: run.finishedAt?.toISOString() ?? null },
+    run: {
+      id: run.id,
+      name: run.name,
+      createdAt: run.createdAt.toISOString(),
+      finishedAt: run.finishedAt?.toISOString() ?? null,
+    },
     parameters: run.params,
     catalogs: cats,
     summary: run.summary,
-    software: { lanewise: pkg.version, node: process.version, kdbush: deps.kdbush, mariadbDriver: deps.mysql2 },
+    software: {
+      lanewise: pkg.version,
+      node: process.version,
+      kdbush: deps.kdbush,
+      mariadbDriver: deps.mysql2,
+    },
     conventions: {
-      positions: 'Galactic l, b (IAU 1958 system, J2000 realisation; Hipparcos Catalogue Vol. 1 §1.5.3), degrees',
-      velocities: 'v_LSR (kinematic LSR: 20 km/s toward α = 18h, δ = +30° B1900), radio convention, km/s',
+      positions:
+        'Galactic l, b (IAU 1958 system, J2000 realisation; Hipparcos Catalogue Vol. 1 §1.5.3), degrees',
+      velocities:
+        'v_LSR (kinematic LSR: 20 km/s toward α = 18h, δ = +30° B1900), radio convention, km/s',
       separation: 'great-circle separation, Vincenty formula (Vincenty 1975)',
       rows: '1-based data rows of each file as uploaded (header lines not counted)',
     },

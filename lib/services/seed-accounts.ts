@@ -17,17 +17,27 @@ export async function ensureDemoAccounts(): Promise<string> {
     if (u) ids[a.email] = u.id;
     else {
       ids[a.email] = newId();
-      await db.insert(users).values({ id: ids[a.email], email: a.email, name: a.name, passwordHash: hash, siteRole: a.siteRole });
+      await db.insert(users).values({
+        id: ids[a.email],
+        email: a.email,
+        name: a.name,
+        passwordHash: hash,
+        siteRole: a.siteRole,
+      });
     }
   }
   const ownerId = ids['owner@harborridge.example'];
-  let [project] = await db.select({ id: projects.id }).from(projects).where(and(eq(projects.name, DEMO_PROJECT_NAME), eq(projects.createdBy, ownerId)));
+  let [project] = await db
+    .select({ id: projects.id })
+    .from(projects)
+    .where(and(eq(projects.name, DEMO_PROJECT_NAME), eq(projects.createdBy, ownerId)));
   if (!project) {
     project = { id: newId() };
     await db.insert(projects).values({
       id: project.id,
       name: DEMO_PROJECT_NAME,
-      description: 'Invented demo data: a synthetic two-armed galaxy whose density wave is known exactly.',
+      description:
+        'Invented demo data: a synthetic two-armed galaxy whose density wave is known exactly.',
       createdBy: ownerId,
       settings: {},
     });

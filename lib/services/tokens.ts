@@ -6,7 +6,9 @@ import { newId, randomSecret, sha256 } from '@/lib/auth/secrets';
 import { notFound } from '@/lib/http/errors';
 import type { PublicUser } from './users';
 
-export const createTokenSchema = z.object({ name: z.string().trim().min(1, 'Name the token.').max(120) });
+export const createTokenSchema = z.object({
+  name: z.string().trim().min(1, 'Name the token.').max(120),
+});
 
 const TOKEN_PREFIX = 'lw_';
 
@@ -14,24 +16,38 @@ const TOKEN_PREFIX = 'lw_';
 export async function createToken(userId: string, name: string) {
   const token = `${TOKEN_PREFIX}${randomSecret(30)}`;
   const id = newId();
-  await db.insert(apiTokens).values({ id, userId, name, tokenHash: sha256(token), prefix: token.slice(0, 10) });
+  await db
+    .insert(apiTokens)
+    .values({ id, userId, name, tokenHash: sha256(token), prefix: token.slice(0, 10) });
   return { id, name, token, prefix: token.slice(0, 10) };
 }
 
 export async function listTokens(userId: string) {
   const rows = await db
-    .select({ id: apiTokens.id, name: apiTokens.name, prefix: apiTokens.prefix, createdAt: apiTokens.createdAt, lastUsedAt: apiTokens.lastUsedAt })
+    .select({
+      id: apiTokens.id,
+      name: apiTokens.name,
+      prefix: apiTokens.prefix,
+      createdAt: apiTokens.createdAt,
+      lastUsedAt: apiTokens.lastUsedAt,
+    })
     .from(apiTokens)
     .where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)))
     .orderBy(desc(apiTokens.createdAt));
-  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), lastUsedAt: r.lastUsedAt?.toISOString() ?? null }));
+  return rows.map((r) => ({
+    ...r,
+    createdAt: r.createdAt.toISOString(),
+    lastUsedAt: r.lastUsedAt?.toISOString() ?? null,
+  }));
 }
 
 export async function revokeToken(userId: string, tokenId: string) {
   const res = await db
     .update(apiTokens)
     .set({ revokedAt: sql`NOW()` })
-    .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)));
+    .where(
+      and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)),
+    );
   if (res[0].affectedRows === 0) throw notFound('Token');
 }
 
@@ -39,12 +55,22 @@ export async function revokeToken(userId: string, tokenId: string) {
 export async function userForToken(token: string): Promise<PublicUser | null> {
   if (!token.startsWith(TOKEN_PREFIX)) return null;
   const [row] = await db
-    .select({ id: users.id, email: users.email, name: users.name, siteRole: users.siteRole, notifyRunEmails: users.notifyRunEmails, tokenId: apiTokens.id })
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      siteRole: users.siteRole,
+      notifyRunEmails: users.notifyRunEmails,
+      tokenId: apiTokens.id,
+    })
     .from(apiTokens)
     .innerJoin(users, eq(users.id, apiTokens.userId))
     .where(and(eq(apiTokens.tokenHash, sha256(token)), isNull(apiTokens.revokedAt)));
   if (!row) return null;
-  await db.update(apiTokens).set({ lastUsedAt: sql`NOW()` }).where(eq(apiTokens.id, row.tokenId));
+  await db
+    .update(apiTokens)
+    .set({ lastUsedAt: sql`NOW()` })
+    .where(eq(apiTokens.id, row.tokenId));
   const { tokenId: _, ...user } = row;
   void _;
   return user;

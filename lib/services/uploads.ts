@@ -36,7 +36,11 @@ export async function receiveUpload(
 ): Promise<ReceivedUpload> {
   const type = req.headers.get('content-type') ?? '';
   if (!type.startsWith('multipart/form-data')) {
-    throw new HttpError(400, 'not_multipart', 'Send the file as multipart/form-data with a part named "file".');
+    throw new HttpError(
+      400,
+      'not_multipart',
+      'Send the file as multipart/form-data with a part named "file".',
+    );
   }
   const declared = Number(req.headers.get('content-length') ?? 0);
   if (declared > limitBytes + 1024 * 1024) throw tooLarge(limitBytes);
@@ -59,7 +63,11 @@ export async function receiveUpload(
       stream.resume();
       return;
     }
-    const safeName = path.basename(info.filename || 'upload').replace(/[^\w.\-]+/g, '_').slice(0, 200) || 'upload';
+    const safeName =
+      path
+        .basename(info.filename || 'upload')
+        .replace(/[^\w.\-]+/g, '_')
+        .slice(0, 200) || 'upload';
     const target = path.join(/* turbopackIgnore: true */ dir, safeName);
     const record = { path: target, fileName: info.filename || safeName, bytes: 0 };
     file = record;
@@ -77,7 +85,11 @@ export async function receiveUpload(
   } catch (e) {
     fs.rmSync(dir, { recursive: true, force: true });
     if (e instanceof HttpError) throw e;
-    throw new HttpError(400, 'bad_upload', `The upload could not be read: ${e instanceof Error ? e.message : e}`);
+    throw new HttpError(
+      400,
+      'bad_upload',
+      `The upload could not be read: ${e instanceof Error ? e.message : e}`,
+    );
   }
   if (overLimit) {
     fs.rmSync(dir, { recursive: true, force: true });

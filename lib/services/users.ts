@@ -45,7 +45,10 @@ export async function createUser(
   input: z.infer<typeof signUpSchema>,
   siteRole: 'admin' | 'member' = 'member',
 ): Promise<PublicUser> {
-  const existing = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
+  const existing = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, input.email));
   if (existing.length) throw conflict('An account with this e-mail address already exists.');
   const user = {
     id: newId(),
@@ -135,9 +138,16 @@ export async function resetPassword(token: string, password: string): Promise<vo
       )
       .for('update');
     if (!reset) {
-      throw new HttpError(400, 'invalid_link', 'This reset link is invalid, used or expired; ask for a new one.');
+      throw new HttpError(
+        400,
+        'invalid_link',
+        'This reset link is invalid, used or expired; ask for a new one.',
+      );
     }
-    await tx.update(passwordResets).set({ usedAt: sql`NOW()` }).where(eq(passwordResets.tokenHash, reset.tokenHash));
+    await tx
+      .update(passwordResets)
+      .set({ usedAt: sql`NOW()` })
+      .where(eq(passwordResets.tokenHash, reset.tokenHash));
     await tx.update(users).set({ passwordHash: newHash }).where(eq(users.id, reset.userId));
   });
 }

@@ -22,12 +22,15 @@ const arg = (name: string, dflt: number) => {
 
 function writeCsv(file: string, rows: number) {
   const out = fs.openSync(file, 'w');
-  fs.writeSync(out, 'GLON,GLAT,VLSR,E_VLSR,FWHM_KMS,SIZE_ARCSEC,POS_ERR_ARCSEC,DIST_KPC,E_DIST_KPC,NAME\n');
+  fs.writeSync(
+    out,
+    'GLON,GLAT,VLSR,E_VLSR,FWHM_KMS,SIZE_ARCSEC,POS_ERR_ARCSEC,DIST_KPC,E_DIST_KPC,NAME\n',
+  );
   let buf = '';
   let seed = 12345;
-  const rnd = () => ((seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff);
+  const rnd = () => (seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff;
   for (let i = 0; i < rows; i++) {
-    buf += `${(rnd() * 360).toFixed(5)},${(rnd() * 10 - 5).toFixed(5)},${(rnd() * 250 - 100).toFixed(2)},${(rnd() * 2).toFixed(2)},${(rnd() * 10).toFixed(2)},${(rnd() * 120).toFixed(1)},${(rnd() * 5).toFixed(2)},${(rnd() * 15).toFixed(2)},${(rnd()).toFixed(2)},BENCH-${i}\n`;
+    buf += `${(rnd() * 360).toFixed(5)},${(rnd() * 10 - 5).toFixed(5)},${(rnd() * 250 - 100).toFixed(2)},${(rnd() * 2).toFixed(2)},${(rnd() * 10).toFixed(2)},${(rnd() * 120).toFixed(1)},${(rnd() * 5).toFixed(2)},${(rnd() * 15).toFixed(2)},${rnd().toFixed(2)},BENCH-${i}\n`;
     if (buf.length > 1 << 20) {
       fs.writeSync(out, buf);
       buf = '';
@@ -45,10 +48,18 @@ async function main() {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lanewise-bench-'));
   const file = path.join(dir, 'bench.csv');
   writeCsv(file, rows);
-  const user = await createUser({ email: `bench-${Date.now()}@lab.example`, name: 'Bench', password: 'bench-password-1' });
+  const user = await createUser({
+    email: `bench-${Date.now()}@lab.example`,
+    name: 'Bench',
+    password: 'bench-password-1',
+  });
   const project = await createProject(user.id, { name: 'Ingest benchmark' });
   const mapping = {
-    position: { system: 'galactic', lon: { column: 'GLON', unit: 'deg' }, lat: { column: 'GLAT', unit: 'deg' } },
+    position: {
+      system: 'galactic',
+      lon: { column: 'GLON', unit: 'deg' },
+      lat: { column: 'GLAT', unit: 'deg' },
+    },
     velocity: { column: 'VLSR', unit: 'km/s', frame: 'lsr', convention: 'radio' },
     velocityError: { column: 'E_VLSR', unit: 'km/s' },
     lineWidth: { column: 'FWHM_KMS', unit: 'km/s', kind: 'fwhm' },

@@ -31,20 +31,34 @@ type Source = { l: number; b: number; v: number };
 
 function randomSky(n: number, seed: number): Source[] {
   let s = seed;
-  const rnd = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
-  return Array.from({ length: n }, () => ({ l: rnd() * 360, b: rnd() * 10 - 5, v: rnd() * 250 - 100 }));
+  const rnd = () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
+  return Array.from({ length: n }, () => ({
+    l: rnd() * 360,
+    b: rnd() * 10 - 5,
+    v: rnd() * 250 - 100,
+  }));
 }
 
 /** Catalog B: the first `share` of A's sources seen again within ~3″ and 1 km/s, the rest random. */
 function withCounterparts(a: Source[], share: number, seed: number): Source[] {
   const other = randomSky(a.length, seed);
   const k = Math.round(share * a.length);
-  return other.map((o, i) => (i < k ? { l: (a[i].l + ((i % 7) - 3) * 2.5e-4 + 360) % 360, b: a[i].b + ((i % 5) - 2) * 2.5e-4, v: a[i].v + ((i % 3) - 1) * 0.5 } : o));
+  return other.map((o, i) =>
+    i < k
+      ? {
+          l: (a[i].l + ((i % 7) - 3) * 2.5e-4 + 360) % 360,
+          b: a[i].b + ((i % 5) - 2) * 2.5e-4,
+          v: a[i].v + ((i % 3) - 1) * 0.5,
+        }
+      : o,
+  );
 }
 
 function writeCatalog(file: string, sources: Source[]) {
   const lines = ['GLON,GLAT,VLSR,NAME'];
-  sources.forEach((x, i) => lines.push(`${x.l.toFixed(5)},${x.b.toFixed(5)},${x.v.toFixed(2)},S${i}`));
+  sources.forEach((x, i) =>
+    lines.push(`${x.l.toFixed(5)},${x.b.toFixed(5)},${x.v.toFixed(2)},S${i}`),
+  );
   fs.writeFileSync(file, lines.join('\n') + '\n');
 }
 
@@ -53,7 +67,11 @@ async function ingest(projectId: string, userId: string, file: string, name: str
   form.set('file', await fs.openAsBlob(file), path.basename(file));
   form.set('name', name);
   form.set('kind', 'co');
-  const c = await createCatalog(new Request('http://bench.local/', { method: 'POST', body: form }), projectId, userId);
+  const c = await createCatalog(
+    new Request('http://bench.local/', { method: 'POST', body: form }),
+    projectId,
+    userId,
+  );
   await ingestCatalog(c.id, async () => undefined);
   return c.id;
 }
@@ -71,12 +89,22 @@ async function main() {
   const skyA = randomSky(n, 1);
   writeCatalog(path.join(dir, 'a.csv'), skyA);
   writeCatalog(path.join(dir, 'b.csv'), withCounterparts(skyA, 0.6, 2));
-  const user = await createUser({ email: `bench-${Date.now()}@lab.example`, name: 'Bench', password: 'bench-password-1' });
+  const user = await createUser({
+    email: `bench-${Date.now()}@lab.example`,
+    name: 'Bench',
+    password: 'bench-password-1',
+  });
   const project = await createProject(user.id, { name: 'Link-run benchmark' });
   const a = await ingest(project.id, user.id, path.join(dir, 'a.csv'), 'A');
   const b = await ingest(project.id, user.id, path.join(dir, 'b.csv'), 'B');
 
-  const main = await timedRun(project.id, user.id, { catalogIds: [a, b], radius: { mode: 'fixed', arcsec: 60 }, velocity: { mode: 'fixed', kms: 5 }, linkMode: 'all', chanceTrials: 5 });
+  const main = await timedRun(project.id, user.id, {
+    catalogIds: [a, b],
+    radius: { mode: 'fixed', arcsec: 60 },
+    velocity: { mode: 'fixed', kms: 5 },
+    linkMode: 'all',
+    chanceTrials: 5,
+  });
 
   // 60 % of A's sources have a counterpart in B within ~3″: a 10″ radius makes one complex of
   // each (~120 000 at 200 000 sources) plus a few chance pairs. The wide radius, chosen from the
@@ -99,7 +127,17 @@ async function main() {
   });
 
   const times: number[] = [];
-  for (const sort of ['id', 'size', 'l', 'b', 'v', 'maxSepArcsec', 'maxDvKms', 'reliability', 'review']) {
+  for (const sort of [
+    'id',
+    'size',
+    'l',
+    'b',
+    'v',
+    'maxSepArcsec',
+    'maxDvKms',
+    'reliability',
+    'review',
+  ]) {
     for (const dir of ['asc', 'desc']) {
       for (const page of [1, 2, 50]) {
         const s = performance.now();
@@ -117,11 +155,16 @@ async function main() {
   let rows = -1;
   // Memory at 10 %, 50 % and 100 % of the rows: flat means the growth stops, whatever the size.
   const growthAt: Record<string, number> = {};
-  const [[{ n: expected }]] = await pool().query<RowDataPacket[]>('SELECT COUNT(*) AS n FROM links WHERE run_id = ?', [wide.id]);
+  const [[{ n: expected }]] = await pool().query<RowDataPacket[]>(
+    'SELECT COUNT(*) AS n FROM links WHERE run_id = ?',
+    [wide.id],
+  );
   for await (const piece of runCsv(wide.id, 'links')) {
     const bytes = typeof piece === 'string' ? Buffer.from(piece) : piece;
     for (let i = bytes.indexOf(10); i >= 0; i = bytes.indexOf(10, i + 1)) rows++;
-    for (const share of [0.1, 0.5]) if (!growthAt[share] && rows >= share * expected) growthAt[share] = Math.round((peakRss - rssBefore) / 1e6);
+    for (const share of [0.1, 0.5])
+      if (!growthAt[share] && rows >= share * expected)
+        growthAt[share] = Math.round((peakRss - rssBefore) / 1e6);
   }
   const exportSeconds = (performance.now() - t0) / 1000;
   clearInterval(sampler);
@@ -134,7 +177,11 @@ async function main() {
       complexesPageP95Ms: +times[Math.floor(0.95 * (times.length - 1))].toFixed(1),
       exportLinks: rows,
       exportRowsPerSecond: Math.round(rows / exportSeconds),
-      exportRssGrowthMb: { at10pct: growthAt[0.1], at50pct: growthAt[0.5], atEnd: Math.round((peakRss - rssBefore) / 1e6) },
+      exportRssGrowthMb: {
+        at10pct: growthAt[0.1],
+        at50pct: growthAt[0.5],
+        atEnd: Math.round((peakRss - rssBefore) / 1e6),
+      },
     }),
   );
   fs.rmSync(dir, { recursive: true, force: true });

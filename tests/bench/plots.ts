@@ -39,7 +39,10 @@ async function bundle(): Promise<string> {
 
 function serve(dir: string): Promise<http.Server> {
   const server = http.createServer((req, res) => {
-    const file = path.join(dir, new URL(req.url ?? '/', 'http://x').pathname.replace(/\/$/, '/index.html'));
+    const file = path.join(
+      dir,
+      new URL(req.url ?? '/', 'http://x').pathname.replace(/\/$/, '/index.html'),
+    );
     if (!file.startsWith(dir) || !fs.existsSync(file)) return void res.writeHead(404).end();
     res.writeHead(200, { 'content-type': file.endsWith('.js') ? 'text/javascript' : 'text/html' });
     fs.createReadStream(file).pipe(res);
@@ -49,14 +52,28 @@ function serve(dir: string): Promise<http.Server> {
 
 type Draw = { testId: string; points: number; start: number; end: number; ms: number };
 const draws = (page: Page) =>
-  page.evaluate((name) => performance.getEntriesByName(name).map((e) => {
-    const m = e as PerformanceMeasure;
-    const d = m.detail as { testId: string; points: number };
-    return { testId: d.testId, points: d.points, start: m.startTime, end: m.startTime + m.duration, ms: m.duration };
-  }), MEASURE);
+  page.evaluate(
+    (name) =>
+      performance.getEntriesByName(name).map((e) => {
+        const m = e as PerformanceMeasure;
+        const d = m.detail as { testId: string; points: number };
+        return {
+          testId: d.testId,
+          points: d.points,
+          start: m.startTime,
+          end: m.startTime + m.duration,
+          ms: m.duration,
+        };
+      }),
+    MEASURE,
+  );
 
 async function waitForDraws(page: Page, count: number): Promise<Draw[]> {
-  await page.waitForFunction(([name, k]) => performance.getEntriesByName(name as string).length >= (k as number), [MEASURE, count], { timeout: 60_000 });
+  await page.waitForFunction(
+    ([name, k]) => performance.getEntriesByName(name as string).length >= (k as number),
+    [MEASURE, count],
+    { timeout: 60_000 },
+  );
   return draws(page);
 }
 
@@ -91,7 +108,9 @@ async function main() {
       await page.mouse.up();
       const after = await waitForDraws(page, before + 1);
       const drawn = after[after.length - 1];
-      const released = await page.evaluate(() => (window as unknown as { pointerUps: number[] }).pointerUps.at(-1)!);
+      const released = await page.evaluate(() =>
+        (window as unknown as { pointerUps: number[] }).pointerUps.at(-1)!,
+      );
       latencies.push(drawn.end - released);
       zoomDraws.push(drawn.ms);
       await reset.click();
@@ -109,7 +128,8 @@ async function main() {
       const tick = (t) => { window.frames_.push(t); if (window.recording) requestAnimationFrame(tick); };
       requestAnimationFrame(tick);
     })()`);
-    for (let i = 0; i < 60; i++) await page.mouse.move(lv.x + 80 + i * 15, lv.y + 60 + (i % 10) * 20);
+    for (let i = 0; i < 60; i++)
+      await page.mouse.move(lv.x + 80 + i * 15, lv.y + 60 + (i % 10) * 20);
     const frames = await page.evaluate(() => {
       const w = window as unknown as { frames_: number[]; recording: boolean };
       w.recording = false;

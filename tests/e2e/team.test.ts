@@ -26,7 +26,9 @@ describe('a new team in the browser', () => {
     await page.getByLabel('New project').fill('Perseus-arm CO survey');
     await page.getByRole('button', { name: 'Create project' }).click();
     await page.waitForURL(/\/projects\/[0-9a-f-]{36}$/);
-    await expect.poll(() => page.getByRole('heading', { name: 'Perseus-arm CO survey' }).count()).toBe(1);
+    await expect
+      .poll(() => page.getByRole('heading', { name: 'Perseus-arm CO survey' }).count())
+      .toBe(1);
 
     await page.getByRole('link', { name: 'Team' }).click();
     const colleague = uniqueEmail('e2e-colleague');

@@ -14,7 +14,14 @@ export type CatalogJson = {
 export async function upload(
   client: Client,
   projectId: string,
-  opts: { content: string | Buffer; fileName?: string; name?: string; kind?: string; mapping?: unknown; policy?: string },
+  opts: {
+    content: string | Buffer;
+    fileName?: string;
+    name?: string;
+    kind?: string;
+    mapping?: unknown;
+    policy?: string;
+  },
 ) {
   const form = new FormData();
   const bytes = typeof opts.content === 'string' ? opts.content : new Uint8Array(opts.content);
@@ -29,12 +36,17 @@ export async function upload(
 }
 
 /** Polls a catalog until it is ready or failed. */
-export async function waitForCatalog(client: Client, id: string, timeoutMs = 60_000): Promise<CatalogJson> {
+export async function waitForCatalog(
+  client: Client,
+  id: string,
+  timeoutMs = 60_000,
+): Promise<CatalogJson> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const r = await client.json<{ catalog: CatalogJson }>('GET', `/api/catalogs/${id}`);
     expect(r.status).toBe(200);
-    if (r.body.catalog.status === 'ready' || r.body.catalog.status === 'failed') return r.body.catalog;
+    if (r.body.catalog.status === 'ready' || r.body.catalog.status === 'failed')
+      return r.body.catalog;
     if (Date.now() > deadline) throw new Error(`catalog ${id} still ${r.body.catalog.status}`);
     await new Promise((res) => setTimeout(res, 200));
   }

@@ -22,7 +22,12 @@ export class Client {
       h['content-type'] = 'application/json';
       payload = JSON.stringify(body);
     }
-    const res = await fetch(BASE_URL + url, { method, headers: h, body: payload, redirect: 'manual' });
+    const res = await fetch(BASE_URL + url, {
+      method,
+      headers: h,
+      body: payload,
+      redirect: 'manual',
+    });
     for (const c of res.headers.getSetCookie()) {
       const [pair] = c.split(';');
       const i = pair.indexOf('=');
@@ -39,7 +44,11 @@ export class Client {
   patch = (url: string, body?: unknown) => this.request('PATCH', url, body);
   delete = (url: string) => this.request('DELETE', url);
 
-  async json<T = Record<string, unknown>>(method: string, url: string, body?: unknown): Promise<{ status: number; body: T }> {
+  async json<T = Record<string, unknown>>(
+    method: string,
+    url: string,
+    body?: unknown,
+  ): Promise<{ status: number; body: T }> {
     const res = await this.request(method, url, body);
     const text = await res.text();
     return { status: res.status, body: (text ? JSON.parse(text) : null) as T };
@@ -47,13 +56,20 @@ export class Client {
 
   /** next-auth credentials sign-in; returns the HTTP status of the callback. */
   async signIn(email: string, password: string): Promise<number> {
-    const { csrfToken } = (await (await this.get('/api/auth/csrf')).json()) as { csrfToken: string };
-    const res = await this.post('/api/auth/callback/credentials', new URLSearchParams({ csrfToken, email, password, json: 'true' }));
+    const { csrfToken } = (await (await this.get('/api/auth/csrf')).json()) as {
+      csrfToken: string;
+    };
+    const res = await this.post(
+      '/api/auth/callback/credentials',
+      new URLSearchParams({ csrfToken, email, password, json: 'true' }),
+    );
     return res.status;
   }
 
   async signOut() {
-    const { csrfToken } = (await (await this.get('/api/auth/csrf')).json()) as { csrfToken: string };
+    const { csrfToken } = (await (await this.get('/api/auth/csrf')).json()) as {
+      csrfToken: string;
+    };
     await this.post('/api/auth/signout', new URLSearchParams({ csrfToken, json: 'true' }));
   }
 
@@ -84,7 +100,12 @@ export async function newUser(tag: string, name = 'Test Researcher') {
 type CaughtMail = { to: string[]; subject: string; text: string; receivedAt: string };
 
 /** Waits for the local mail catcher to hold a message to `to` matching `subject`. */
-export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_000, contains = ''): Promise<CaughtMail> {
+export async function waitForMail(
+  to: string,
+  subject: RegExp,
+  timeoutMs = 10_000,
+  contains = '',
+): Promise<CaughtMail> {
   const dir = process.env.MAIL_CATCHER_DIR ?? '.data/test/mail';
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
@@ -106,7 +127,9 @@ export function countMail(to: string): number {
   return fs
     .readdirSync(dir)
     .filter((n) => n.endsWith('.json'))
-    .filter((f) => (JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')) as CaughtMail).to.includes(to)).length;
+    .filter((f) =>
+      (JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')) as CaughtMail).to.includes(to),
+    ).length;
 }
 
 export const linkIn = (text: string) => {

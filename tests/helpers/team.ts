@@ -11,8 +11,16 @@ export type Team = {
 };
 
 /** Invites `email` to the project as `role` through the API and accepts from the mailed link. */
-export async function inviteAndAccept(owner: Client, projectId: string, guest: { client: Client; email: string }, role: string) {
-  const r = await owner.json('POST', `/api/projects/${projectId}/members`, { email: guest.email, role });
+export async function inviteAndAccept(
+  owner: Client,
+  projectId: string,
+  guest: { client: Client; email: string },
+  role: string,
+) {
+  const r = await owner.json('POST', `/api/projects/${projectId}/members`, {
+    email: guest.email,
+    role,
+  });
   if (r.status !== 201) throw new Error(`invite failed: ${JSON.stringify(r.body)}`);
   const mail = await waitForMail(guest.email, /invited/);
   const token = new URL(linkIn(mail.text)).pathname.split('/').pop()!;
@@ -26,7 +34,9 @@ export async function makeTeam(tag: string): Promise<Team> {
   const editor = await newUser(`${tag}-editor`);
   const viewer = await newUser(`${tag}-viewer`);
   const outsider = await newUser(`${tag}-outsider`);
-  const created = await owner.client.json<{ project: { id: string } }>('POST', '/api/projects', { name: `Project ${tag}` });
+  const created = await owner.client.json<{ project: { id: string } }>('POST', '/api/projects', {
+    name: `Project ${tag}`,
+  });
   const projectId = created.body.project.id;
   await inviteAndAccept(owner.client, projectId, editor, 'editor');
   await inviteAndAccept(owner.client, projectId, viewer, 'viewer');

@@ -14,12 +14,20 @@ describe('sign-up, sign-in, sign-out', () => {
 
   it('refuses a second account with the same address', async () => {
     const { email } = await newUser('dup');
-    const again = await new Client().json<{ error: { code: string } }>('POST', '/api/account/signup', { email, name: 'X', password: PASSWORD });
+    const again = await new Client().json<{ error: { code: string } }>(
+      'POST',
+      '/api/account/signup',
+      { email, name: 'X', password: PASSWORD },
+    );
     expect(again.status).toBe(409);
   });
 
   it('rejects a short password with a message naming the field', async () => {
-    const r = await new Client().json<{ error: { message: string } }>('POST', '/api/account/signup', { email: uniqueEmail('short'), name: 'X', password: 'short' });
+    const r = await new Client().json<{ error: { message: string } }>(
+      'POST',
+      '/api/account/signup',
+      { email: uniqueEmail('short'), name: 'X', password: 'short' },
+    );
     expect(r.status).toBe(400);
     expect(r.body.error.message).toMatch(/password/);
   });
@@ -57,9 +65,19 @@ describe('password reset by e-mail', () => {
     const token = new URL(link).pathname.split('/').pop()!;
     expect((await anon.get(new URL(link).pathname)).status).toBe(200);
     const newPassword = 'a-brand-new-password';
-    expect((await anon.post('/api/account/password-reset/confirm', { token, password: newPassword })).status).toBe(200);
+    expect(
+      (await anon.post('/api/account/password-reset/confirm', { token, password: newPassword }))
+        .status,
+    ).toBe(200);
     // Used once only.
-    expect((await anon.post('/api/account/password-reset/confirm', { token, password: 'another-password-1' })).status).toBe(400);
+    expect(
+      (
+        await anon.post('/api/account/password-reset/confirm', {
+          token,
+          password: 'another-password-1',
+        })
+      ).status,
+    ).toBe(400);
     const old = new Client();
     await old.signIn(email, PASSWORD);
     expect(old.signedIn).toBe(false);
@@ -69,14 +87,19 @@ describe('password reset by e-mail', () => {
   });
 
   it('answers 202 for an unknown address without sending mail', async () => {
-    expect((await new Client().post('/api/account/password-reset', { email: uniqueEmail('ghost') })).status).toBe(202);
+    expect(
+      (await new Client().post('/api/account/password-reset', { email: uniqueEmail('ghost') }))
+        .status,
+    ).toBe(202);
   });
 });
 
 describe('personal API tokens', () => {
   it('work as Bearer, are listed without the secret, and give 401 once revoked', async () => {
     const { client, email } = await newUser('token');
-    const created = await client.json<{ token: string; id: string }>('POST', '/api/tokens', { name: 'notebook' });
+    const created = await client.json<{ token: string; id: string }>('POST', '/api/tokens', {
+      name: 'notebook',
+    });
     expect(created.status).toBe(201);
     const script = new Client();
     script.bearer = created.body.token;
@@ -99,7 +122,12 @@ describe('personal API tokens', () => {
 describe('cross-site requests', () => {
   it('refuses a cookie-authenticated change from another origin', async () => {
     const { client } = await newUser('csrf');
-    const res = await client.request('POST', '/api/projects', { name: 'Forged' }, { origin: 'http://evil.example' });
+    const res = await client.request(
+      'POST',
+      '/api/projects',
+      { name: 'Forged' },
+      { origin: 'http://evil.example' },
+    );
     expect(res.status).toBe(403);
   });
 });

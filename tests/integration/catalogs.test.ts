@@ -10,13 +10,19 @@ describe('catalog upload and ingest', () => {
   beforeAll(async () => {
     const u = await newUser('cat');
     owner = u.client;
-    const p = await owner.json<{ project: { id: string } }>('POST', '/api/projects', { name: 'Catalogs' });
+    const p = await owner.json<{ project: { id: string } }>('POST', '/api/projects', {
+      name: 'Catalogs',
+    });
     projectId = p.body.project.id;
   });
 
   it('ingests a CSV, reports bad rows by file line, and serves paged, sorted rows', async () => {
     // Lines 1–2 are the comment and the header, so data row k sits on line k + 2.
-    const csv = planeCsv(200, ['12.5,95.2,10,BAD-LAT', '13.0,abc,10,BAD-NUM', '14.0,0.5,10,TOO,MANY']);
+    const csv = planeCsv(200, [
+      '12.5,95.2,10,BAD-LAT',
+      '13.0,abc,10,BAD-NUM',
+      '14.0,0.5,10,TOO,MANY',
+    ]);
     const up = await upload(owner, projectId, { content: csv, name: 'Plane CO' });
     expect(up.status).toBe(202);
     expect(up.body.catalog.status).toBe('queued');
@@ -28,20 +34,32 @@ describe('catalog upload and ingest', () => {
     expect(c.rejected![0].reason).toMatch(/95\.2/);
     expect(c.rejected![1].reason).toMatch(/abc/);
 
-    const page = await owner.json<{ rows: { row: number; l: number; name: string }[]; total: number }>('GET', `/api/catalogs/${c.id}/rows?page=2&pageSize=25&sort=l&dir=desc`);
+    const page = await owner.json<{
+      rows: { row: number; l: number; name: string }[];
+      total: number;
+    }>('GET', `/api/catalogs/${c.id}/rows?page=2&pageSize=25&sort=l&dir=desc`);
     expect(page.status).toBe(200);
     expect(page.body.total).toBe(200);
     expect(page.body.rows).toHaveLength(25);
     const ls = page.body.rows.map((r) => r.l);
     expect([...ls].sort((a, b) => b - a)).toEqual(ls);
-    const all = await owner.json<{ rows: { l: number }[] }>('GET', `/api/catalogs/${c.id}/rows?pageSize=500&sort=l&dir=desc`);
+    const all = await owner.json<{ rows: { l: number }[] }>(
+      'GET',
+      `/api/catalogs/${c.id}/rows?pageSize=500&sort=l&dir=desc`,
+    );
     expect(all.body.rows[25].l).toBe(page.body.rows[0].l);
 
-    const filtered = await owner.json<{ rows: { l: number; b: number }[]; total: number }>('GET', `/api/catalogs/${c.id}/rows?lMin=100&lMax=200&pageSize=500`);
+    const filtered = await owner.json<{ rows: { l: number; b: number }[]; total: number }>(
+      'GET',
+      `/api/catalogs/${c.id}/rows?lMin=100&lMax=200&pageSize=500`,
+    );
     expect(filtered.body.rows.every((r) => r.l >= 100 && r.l <= 200)).toBe(true);
     expect(filtered.body.total).toBe(filtered.body.rows.length);
 
-    const named = await owner.json<{ rows: { name: string }[]; total: number }>('GET', `/api/catalogs/${c.id}/rows?q=SRC-0042`);
+    const named = await owner.json<{ rows: { name: string }[]; total: number }>(
+      'GET',
+      `/api/catalogs/${c.id}/rows?q=SRC-0042`,
+    );
     expect(named.body.total).toBe(1);
     expect(named.body.rows[0].name).toBe('SRC-0042');
 
@@ -62,7 +80,11 @@ describe('catalog upload and ingest', () => {
     const up = await upload(owner, projectId, {
       content: csv,
       mapping: {
-        position: { system: 'equatorial', lon: { column: 'RA', unit: 'sexagesimal' }, lat: { column: 'DEC', unit: 'sexagesimal' } },
+        position: {
+          system: 'equatorial',
+          lon: { column: 'RA', unit: 'sexagesimal' },
+          lat: { column: 'DEC', unit: 'sexagesimal' },
+        },
         velocity: { column: 'VHEL', unit: 'km/s', frame: 'heliocentric', convention: 'radio' },
         name: { column: 'NAME' },
       },
@@ -70,7 +92,10 @@ describe('catalog upload and ingest', () => {
     expect(up.status).toBe(202);
     const c = await waitForCatalog(owner, up.body.catalog.id);
     expect(c.status).toBe('ready');
-    const { body } = await owner.json<{ rows: { l: number; b: number; v: number }[] }>('GET', `/api/catalogs/${c.id}/rows`);
+    const { body } = await owner.json<{ rows: { l: number; b: number; v: number }[] }>(
+      'GET',
+      `/api/catalogs/${c.id}/rows`,
+    );
     const l = body.rows[0].l > 180 ? body.rows[0].l - 360 : body.rows[0].l;
     expect(Math.abs(l) * 3600).toBeLessThan(0.1);
     expect(Math.abs(body.rows[0].b) * 3600).toBeLessThan(0.1);
@@ -79,7 +104,10 @@ describe('catalog upload and ingest', () => {
   });
 
   it('with the reject-file policy, one bad row fails the file and stores no rows', async () => {
-    const up = await upload(owner, projectId, { content: planeCsv(50, ['1,2,x,BAD']), policy: 'reject-file' });
+    const up = await upload(owner, projectId, {
+      content: planeCsv(50, ['1,2,x,BAD']),
+      policy: 'reject-file',
+    });
     expect(up.status).toBe(202);
     const c = await waitForCatalog(owner, up.body.catalog.id);
     expect(c.status).toBe('failed');
@@ -90,7 +118,10 @@ describe('catalog upload and ingest', () => {
 
   // 500 rows: the cut lies past what the upload checks, so it is found by the ingest job.
   it('fails a truncated VOTable clearly, leaving no rows', async () => {
-    const rows = Array.from({ length: 500 }, (_, i) => `<TR><TD>${i}.5</TD><TD>0.1</TD><TD>12</TD></TR>`).join('\n');
+    const rows = Array.from(
+      { length: 500 },
+      (_, i) => `<TR><TD>${i}.5</TD><TD>0.1</TD><TD>12</TD></TR>`,
+    ).join('\n');
     const vot = `<?xml version="1.0"?>\n<VOTABLE version="1.4" xmlns="http://www.ivoa.net/xml/VOTable/v1.3">\n<RESOURCE><TABLE>\n<FIELD name="glon" datatype="double" unit="deg" ucd="pos.galactic.lon"/>\n<FIELD name="glat" datatype="double" unit="deg" ucd="pos.galactic.lat"/>\n<FIELD name="vlsr" datatype="double" unit="km/s" ucd="spect.dopplerVeloc"/>\n<DATA><TABLEDATA>\n${rows}\n<TR><TD>1`;
     const up = await upload(owner, projectId, { content: vot, fileName: 'cut.vot' });
     expect(up.status).toBe(202);
@@ -100,23 +131,66 @@ describe('catalog upload and ingest', () => {
     expect(c.rowCount).toBe(0);
   });
 
-  const badFiles: { name: string; content: string | Buffer; mapping?: unknown; status: number; code?: string; message: RegExp }[] = [
+  const badFiles: {
+    name: string;
+    content: string | Buffer;
+    mapping?: unknown;
+    status: number;
+    code?: string;
+    message: RegExp;
+  }[] = [
     { name: 'an empty file', content: '', status: 400, code: 'empty-file', message: /empty/i },
-    { name: 'a header only', content: 'GLON,GLAT,VLSR\n', status: 400, code: 'no-data-rows', message: /row/i },
-    { name: 'binary garbage', content: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0x0d, 0xff, 0xfe, 0, 1, 2, 3]), status: 400, code: 'binary-file', message: /binary|text/i },
-    { name: 'no position columns', content: 'flux_mjy,detected\n1500,yes\n2500,no\n', status: 422, code: 'no-position-columns', message: /position/i },
-    { name: 'duplicate header names', content: 'GLON,GLAT,GLAT\n1,2,3\n', status: 400, code: 'duplicate-column', message: /GLAT/ },
+    {
+      name: 'a header only',
+      content: 'GLON,GLAT,VLSR\n',
+      status: 400,
+      code: 'no-data-rows',
+      message: /row/i,
+    },
+    {
+      name: 'binary garbage',
+      content: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0x0d, 0xff, 0xfe, 0, 1, 2, 3]),
+      status: 400,
+      code: 'binary-file',
+      message: /binary|text/i,
+    },
+    {
+      name: 'no position columns',
+      content: 'flux_mjy,detected\n1500,yes\n2500,no\n',
+      status: 422,
+      code: 'no-position-columns',
+      message: /position/i,
+    },
+    {
+      name: 'duplicate header names',
+      content: 'GLON,GLAT,GLAT\n1,2,3\n',
+      status: 400,
+      code: 'duplicate-column',
+      message: /GLAT/,
+    },
     {
       name: 'the wrong delimiter',
       content: 'GLON|GLAT|VLSR\n1|2|3\n4|5|6\n',
-      mapping: { position: { system: 'galactic', lon: { column: 'GLON', unit: 'deg' }, lat: { column: 'GLAT', unit: 'deg' } } },
+      mapping: {
+        position: {
+          system: 'galactic',
+          lon: { column: 'GLON', unit: 'deg' },
+          lat: { column: 'GLAT', unit: 'deg' },
+        },
+      },
       status: 400,
       message: /delimiter|column/i,
     },
     {
       name: 'an unknown unit',
       content: 'GLON,GLAT,VLSR\n1,2,3\n',
-      mapping: { position: { system: 'galactic', lon: { column: 'GLON', unit: 'furlong' }, lat: { column: 'GLAT', unit: 'deg' } } },
+      mapping: {
+        position: {
+          system: 'galactic',
+          lon: { column: 'GLON', unit: 'furlong' },
+          lat: { column: 'GLAT', unit: 'deg' },
+        },
+      },
       status: 400,
       message: /unit|furlong/i,
     },
@@ -124,12 +198,18 @@ describe('catalog upload and ingest', () => {
 
   for (const bad of badFiles) {
     it(`refuses ${bad.name} with a clear error and stores nothing`, async () => {
-      const before = await owner.json<{ catalogs: unknown[] }>('GET', `/api/projects/${projectId}/catalogs`);
+      const before = await owner.json<{ catalogs: unknown[] }>(
+        'GET',
+        `/api/projects/${projectId}/catalogs`,
+      );
       const up = await upload(owner, projectId, { content: bad.content, mapping: bad.mapping });
       expect(up.status).toBe(bad.status);
       if (bad.code) expect(up.body.error.code).toBe(bad.code);
       expect(up.body.error.message).toMatch(bad.message);
-      const after = await owner.json<{ catalogs: unknown[] }>('GET', `/api/projects/${projectId}/catalogs`);
+      const after = await owner.json<{ catalogs: unknown[] }>(
+        'GET',
+        `/api/projects/${projectId}/catalogs`,
+      );
       expect(after.body.catalogs.length).toBe(before.body.catalogs.length);
     });
   }
@@ -138,7 +218,14 @@ describe('catalog upload and ingest', () => {
     const csv = 'RA_HOURS,DEC_DEG,NAME\n12.5,-20,ok-1\n24.5,-20,bad-ra\n13.1\n';
     const up = await upload(owner, projectId, {
       content: csv,
-      mapping: { position: { system: 'equatorial', lon: { column: 'RA_HOURS', unit: 'hours' }, lat: { column: 'DEC_DEG', unit: 'deg' } }, name: { column: 'NAME' } },
+      mapping: {
+        position: {
+          system: 'equatorial',
+          lon: { column: 'RA_HOURS', unit: 'hours' },
+          lat: { column: 'DEC_DEG', unit: 'deg' },
+        },
+        name: { column: 'NAME' },
+      },
     });
     const c = await waitForCatalog(owner, up.body.catalog.id);
     expect(c.status).toBe('ready');
@@ -149,7 +236,9 @@ describe('catalog upload and ingest', () => {
 
   it('answers 413 past the upload limit and keeps serving', async () => {
     const big = Buffer.alloc(6 * 1024 * 1024, '1,2,3\n');
-    const up = await upload(owner, projectId, { content: Buffer.concat([Buffer.from('GLON,GLAT,VLSR\n'), big]) });
+    const up = await upload(owner, projectId, {
+      content: Buffer.concat([Buffer.from('GLON,GLAT,VLSR\n'), big]),
+    });
     expect(up.status).toBe(413);
     expect((await owner.get('/api/health')).status).toBe(200);
   });
@@ -160,7 +249,12 @@ describe('catalog upload and ingest', () => {
     const res = await owner.request('POST', `/api/projects/${projectId}/catalogs/preview`, form);
     expect(res.status).toBe(200);
     const body = await res.json();
-    expect(body.preview.columns.map((c: { name: string }) => c.name)).toEqual(['GLON', 'GLAT', 'VLSR', 'NAME']);
+    expect(body.preview.columns.map((c: { name: string }) => c.name)).toEqual([
+      'GLON',
+      'GLAT',
+      'VLSR',
+      'NAME',
+    ]);
     expect(body.preview.rows[0].line).toBe(3);
     expect(body.suggestion.positionUnambiguous).toBe(true);
     expect(body.suggestion.mapping.position.system).toBe('galactic');
@@ -201,16 +295,26 @@ describe('catalog endpoints by role', () => {
 describe('a worker killed in the middle of an ingest', () => {
   it('leaves no partial catalog; the ingest runs again and stores every row once', async () => {
     const { client } = await newUser('cat-crash');
-    const p = await client.json<{ project: { id: string } }>('POST', '/api/projects', { name: 'Crash ingest' });
-    const up = await upload(client, p.body.project.id, { content: planeCsv(110_000), name: 'Big plane' });
+    const p = await client.json<{ project: { id: string } }>('POST', '/api/projects', {
+      name: 'Crash ingest',
+    });
+    const up = await upload(client, p.body.project.id, {
+      content: planeCsv(110_000),
+      name: 'Big plane',
+    });
     expect(up.status).toBe(202);
     const id = up.body.catalog.id;
     const conn = await mysql.createConnection(process.env.DATABASE_URL!);
     try {
       let pid = 0;
       for (let i = 0; i < 600 && !pid; i++) {
-        const [[job]] = (await conn.query("SELECT j.locked_by, j.progress FROM jobs j JOIN catalogs c ON c.job_id = j.id WHERE c.id = ? AND j.status = 'running'", [id])) as unknown as [[{ locked_by: string; progress: number }?]];
-        const [[cat]] = (await conn.query('SELECT progress FROM catalogs WHERE id = ?', [id])) as unknown as [[{ progress: number }]];
+        const [[job]] = (await conn.query(
+          "SELECT j.locked_by, j.progress FROM jobs j JOIN catalogs c ON c.job_id = j.id WHERE c.id = ? AND j.status = 'running'",
+          [id],
+        )) as unknown as [[{ locked_by: string; progress: number }?]];
+        const [[cat]] = (await conn.query('SELECT progress FROM catalogs WHERE id = ?', [
+          id,
+        ])) as unknown as [[{ progress: number }]];
         if (job && cat.progress > 0.05) pid = Number(job.locked_by.split(':').pop());
         else await new Promise((res) => setTimeout(res, 20));
       }
@@ -222,7 +326,10 @@ describe('a worker killed in the middle of an ingest', () => {
       const done = await waitForCatalog(client, id, 120_000);
       expect(done.status).toBe('ready');
       expect(done.rowCount).toBe(110_000);
-      const all = await client.json<{ total: number; rows: { row: number }[] }>('GET', `/api/catalogs/${id}/rows?sort=row&dir=desc&pageSize=1`);
+      const all = await client.json<{ total: number; rows: { row: number }[] }>(
+        'GET',
+        `/api/catalogs/${id}/rows?sort=row&dir=desc&pageSize=1`,
+      );
       expect(all.body.total).toBe(110_000);
       expect(all.body.rows[0].row).toBe(110_000);
     } finally {

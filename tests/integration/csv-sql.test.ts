@@ -6,7 +6,10 @@ import { csvCellSql, csvLineSql, type CsvSqlKind } from '@/lib/export/csv-sql';
 
 /** Asks the real MariaDB for the CSV cell of `value` held in a column of type `type`. */
 async function sqlCell(value: unknown, type: string, kind: CsvSqlKind): Promise<string> {
-  const [[r]] = await pool().query<RowDataPacket[]>(`SELECT ${csvCellSql('t.x', kind)} AS cell FROM (SELECT CAST(? AS ${type}) AS x) t`, [value]);
+  const [[r]] = await pool().query<RowDataPacket[]>(
+    `SELECT ${csvCellSql('t.x', kind)} AS cell FROM (SELECT CAST(? AS ${type}) AS x) t`,
+    [value],
+  );
   return String(r.cell);
 }
 
@@ -17,19 +20,58 @@ afterAll(() => closeDb());
 describe('CSV cells written by MariaDB', () => {
   it('escape text exactly as the JavaScript writer does', async () => {
     const texts = [
-      'G012.80-00.20', 'plain', 'Núcleo Ω', '=HYPERLINK("http://x")', '+cmd', '-2+3', '@SUM(A1)', '\tx', '\rx', 'a,b',
-      'say "hi"', 'two\nlines', '-12.5', '+3', '-1.5e-3', '.5', '-.5e+7', '-12.5\n', '-', '+', '=', "it's", 'back\\slash', '',
-      '-1e', '1-2', ' -3',
+      'G012.80-00.20',
+      'plain',
+      'Núcleo Ω',
+      '=HYPERLINK("http://x")',
+      '+cmd',
+      '-2+3',
+      '@SUM(A1)',
+      '\tx',
+      '\rx',
+      'a,b',
+      'say "hi"',
+      'two\nlines',
+      '-12.5',
+      '+3',
+      '-1.5e-3',
+      '.5',
+      '-.5e+7',
+      '-12.5\n',
+      '-',
+      '+',
+      '=',
+      "it's",
+      'back\\slash',
+      '',
+      '-1e',
+      '1-2',
+      ' -3',
     ];
-    for (const t of texts) expect([t, await sqlCell(t, 'CHAR CHARACTER SET utf8mb4', 'text')]).toEqual([t, csvCell(t)]);
+    for (const t of texts)
+      expect([t, await sqlCell(t, 'CHAR CHARACTER SET utf8mb4', 'text')]).toEqual([t, csvCell(t)]);
     expect(await sqlCell(null, 'CHAR', 'text')).toBe('');
   });
 
   it('write doubles as the same numbers, in the same digits for ordinary values', async () => {
-    const numbers = [0, -0.2, 12.8, 0.1 + 0.2, 177.64216939984394, -57.31, 1 / 3, 1e-5, 123456789.125, -89.99999, 359.999999999];
-    for (const x of numbers) expect([x, await sqlCell(x, 'DOUBLE', 'number')]).toEqual([x, csvCell(x)]);
+    const numbers = [
+      0,
+      -0.2,
+      12.8,
+      0.1 + 0.2,
+      177.64216939984394,
+      -57.31,
+      1 / 3,
+      1e-5,
+      123456789.125,
+      -89.99999,
+      359.999999999,
+    ];
+    for (const x of numbers)
+      expect([x, await sqlCell(x, 'DOUBLE', 'number')]).toEqual([x, csvCell(x)]);
     // Very large and very small magnitudes differ only in how the exponent is spelled.
-    for (const x of [1.5e-8, 6.02e23, -2.5e-300]) expect(Number(await sqlCell(x, 'DOUBLE', 'number'))).toBe(x);
+    for (const x of [1.5e-8, 6.02e23, -2.5e-300])
+      expect(Number(await sqlCell(x, 'DOUBLE', 'number'))).toBe(x);
     expect(await sqlCell(null, 'DOUBLE', 'number')).toBe('');
     expect(await sqlCell(42, 'SIGNED', 'number')).toBe('42');
   });
@@ -38,8 +80,12 @@ describe('CSV cells written by MariaDB', () => {
     expect(await sqlCell(1, 'SIGNED', 'boolean')).toBe(csvCell(true));
     expect(await sqlCell(0, 'SIGNED', 'boolean')).toBe(csvCell(false));
     expect(await sqlCell(null, 'SIGNED', 'boolean')).toBe('');
-    expect(await sqlCell('2026-03-04 05:06:07.089', 'DATETIME(3)', 'time')).toBe(new Date('2026-03-04T05:06:07.089Z').toISOString());
-    expect(await sqlCell('2026-12-31 23:59:59.000', 'DATETIME(3)', 'time')).toBe('2026-12-31T23:59:59.000Z');
+    expect(await sqlCell('2026-03-04 05:06:07.089', 'DATETIME(3)', 'time')).toBe(
+      new Date('2026-03-04T05:06:07.089Z').toISOString(),
+    );
+    expect(await sqlCell('2026-12-31 23:59:59.000', 'DATETIME(3)', 'time')).toBe(
+      '2026-12-31T23:59:59.000Z',
+    );
     expect(await sqlCell(null, 'DATETIME(3)', 'time')).toBe('');
   });
 
@@ -50,7 +96,9 @@ describe('CSV cells written by MariaDB', () => {
       { sql: 't.c', kind: 'text' },
       { sql: 't.d', kind: 'number' },
     ]);
-    const [[r]] = await pool().query<RowDataPacket[]>(`SELECT ${line} AS line FROM (SELECT 'x' AS a, NULL AS b, 'a,b' AS c, CAST(-1.25 AS DOUBLE) AS d) t`);
+    const [[r]] = await pool().query<RowDataPacket[]>(
+      `SELECT ${line} AS line FROM (SELECT 'x' AS a, NULL AS b, 'a,b' AS c, CAST(-1.25 AS DOUBLE) AS d) t`,
+    );
     expect(String(r.line)).toBe('x,,"a,b",-1.25\r\n');
   });
 });

@@ -13,11 +13,15 @@ describe('GET /api/health', () => {
   it('answers 503 with the database stopped', async () => {
     // A second server of the same build whose database is down (nothing listens on its port).
     const port = 3199 - Number(process.env.LANEWISE_TEST_SLOT ?? 0);
-    const child = spawn(path.resolve('node_modules/.bin/next'), ['start', '-H', '127.0.0.1', '-p', String(port)], {
-      env: { ...process.env, DATABASE_URL: 'mysql://lanewise:x@127.0.0.1:1/none' },
-      stdio: 'ignore',
-      detached: true,
-    });
+    const child = spawn(
+      path.resolve('node_modules/.bin/next'),
+      ['start', '-H', '127.0.0.1', '-p', String(port)],
+      {
+        env: { ...process.env, DATABASE_URL: 'mysql://lanewise:x@127.0.0.1:1/none' },
+        stdio: 'ignore',
+        detached: true,
+      },
+    );
     try {
       let res: Response | null = null;
       for (let i = 0; i < 100 && !res; i++) {

@@ -14,7 +14,11 @@ describe('project endpoints by role', () => {
     team = await makeTeam('access');
   });
 
-  const cases: { name: string; call: (t: Team, who: Who) => Promise<Response>; expect: Record<Who, number> }[] = [
+  const cases: {
+    name: string;
+    call: (t: Team, who: Who) => Promise<Response>;
+    expect: Record<Who, number>;
+  }[] = [
     {
       name: 'GET project',
       call: (t, who) => t[who].get(`/api/projects/${t.projectId}`),
@@ -32,17 +36,25 @@ describe('project endpoints by role', () => {
     },
     {
       name: 'POST members (invite)',
-      call: (t, who) => t[who].post(`/api/projects/${t.projectId}/members`, { email: `guest-${who}-${Date.now()}@lab.example`, role: 'viewer' }),
+      call: (t, who) =>
+        t[who].post(`/api/projects/${t.projectId}/members`, {
+          email: `guest-${who}-${Date.now()}@lab.example`,
+          role: 'viewer',
+        }),
       expect: { owner: 201, editor: 403, viewer: 403, outsider: 404, anonymous: 401 },
     },
     {
       name: 'PATCH member role',
-      call: (t, who) => t[who].patch(`/api/projects/${t.projectId}/members/${t.ids.viewer}`, { role: 'viewer' }),
+      call: (t, who) =>
+        t[who].patch(`/api/projects/${t.projectId}/members/${t.ids.viewer}`, { role: 'viewer' }),
       expect: { owner: 200, editor: 403, viewer: 403, outsider: 404, anonymous: 401 },
     },
     {
       name: 'DELETE another member',
-      call: (t, who) => t[who].delete(`/api/projects/${t.projectId}/members/${who === 'editor' ? t.ids.viewer : t.ids.editor}`),
+      call: (t, who) =>
+        t[who].delete(
+          `/api/projects/${t.projectId}/members/${who === 'editor' ? t.ids.viewer : t.ids.editor}`,
+        ),
       // The owner's call runs last (below) so the editor is still there for the others.
       expect: { owner: 204, editor: 403, viewer: 403, outsider: 404, anonymous: 401 },
     },
@@ -58,7 +70,10 @@ describe('project endpoints by role', () => {
   }
 
   it('DELETE another member as owner → 204', async () => {
-    expect((await team.owner.delete(`/api/projects/${team.projectId}/members/${team.ids.editor}`)).status).toBe(204);
+    expect(
+      (await team.owner.delete(`/api/projects/${team.projectId}/members/${team.ids.editor}`))
+        .status,
+    ).toBe(204);
     expect((await team.editor.get(`/api/projects/${team.projectId}`)).status).toBe(404);
   });
 
@@ -82,16 +97,34 @@ describe('project endpoints by role', () => {
 describe('owners', () => {
   it('the last owner can neither be demoted nor leave; with two owners one may leave', async () => {
     const t = await makeTeam('owners');
-    expect((await t.owner.patch(`/api/projects/${t.projectId}/members/${t.ids.owner}`, { role: 'editor' })).status).toBe(409);
-    expect((await t.owner.delete(`/api/projects/${t.projectId}/members/${t.ids.owner}`)).status).toBe(409);
-    expect((await t.owner.patch(`/api/projects/${t.projectId}/members/${t.ids.editor}`, { role: 'owner' })).status).toBe(200);
-    expect((await t.owner.delete(`/api/projects/${t.projectId}/members/${t.ids.owner}`)).status).toBe(204);
+    expect(
+      (
+        await t.owner.patch(`/api/projects/${t.projectId}/members/${t.ids.owner}`, {
+          role: 'editor',
+        })
+      ).status,
+    ).toBe(409);
+    expect(
+      (await t.owner.delete(`/api/projects/${t.projectId}/members/${t.ids.owner}`)).status,
+    ).toBe(409);
+    expect(
+      (
+        await t.owner.patch(`/api/projects/${t.projectId}/members/${t.ids.editor}`, {
+          role: 'owner',
+        })
+      ).status,
+    ).toBe(200);
+    expect(
+      (await t.owner.delete(`/api/projects/${t.projectId}/members/${t.ids.owner}`)).status,
+    ).toBe(204);
     expect((await t.editor.get(`/api/projects/${t.projectId}`)).status).toBe(200);
   });
 
   it('a viewer may leave on their own', async () => {
     const t = await makeTeam('leave');
-    expect((await t.viewer.delete(`/api/projects/${t.projectId}/members/${t.ids.viewer}`)).status).toBe(204);
+    expect(
+      (await t.viewer.delete(`/api/projects/${t.projectId}/members/${t.ids.viewer}`)).status,
+    ).toBe(204);
     expect((await t.viewer.get(`/api/projects/${t.projectId}`)).status).toBe(404);
   });
 });

@@ -3,7 +3,11 @@ import { SignUpForm } from '@/components/forms/sign-up-form';
 
 export const metadata = { title: 'Create an account' };
 
-export default async function SignUpPage({ searchParams }: { searchParams: Promise<{ next?: string; email?: string }> }) {
+export default async function SignUpPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ next?: string; email?: string }>;
+}) {
   const { next, email } = await searchParams;
   const safeNext = next?.startsWith('/') && !next.startsWith('//') ? next : '/projects';
   return (
@@ -11,7 +15,13 @@ export default async function SignUpPage({ searchParams }: { searchParams: Promi
       <h1 className="text-2xl font-semibold">Create an account</h1>
       <SignUpForm next={safeNext} email={email} />
       <p className="text-sm text-ink-soft">
-        Have an account? <Link className="text-accent underline" href={`/signin?next=${encodeURIComponent(safeNext)}`}>Sign in</Link>
+        Have an account?{' '}
+        <Link
+          className="text-accent underline"
+          href={`/signin?next=${encodeURIComponent(safeNext)}`}
+        >
+          Sign in
+        </Link>
       </p>
     </div>
   );

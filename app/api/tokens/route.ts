@@ -11,5 +11,8 @@ export const POST = route(async (req) => {
   const user = await requireUser(req);
   const { name } = createTokenSchema.parse(await jsonBody(req));
   const created = await createToken(user.id, name);
-  return json({ token: created.token, id: created.id, name: created.name, prefix: created.prefix }, 201);
+  return json(
+    { token: created.token, id: created.id, name: created.name, prefix: created.prefix },
+    201,
+  );
 });

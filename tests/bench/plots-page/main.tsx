@@ -8,7 +8,7 @@ import { CatalogPlots } from '@/components/plots/catalog-plots';
 
 const n = Number(new URLSearchParams(location.search).get('points') ?? 1_000_000);
 let seed = 7;
-const rnd = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+const rnd = () => (seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32;
 const points = new Float32Array(3 * n);
 for (let i = 0; i < n; i++) {
   const l = rnd() * 360;

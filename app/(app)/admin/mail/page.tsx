@@ -12,15 +12,22 @@ export default async function SentMailPage() {
   const messages = await listCaughtMail();
   return (
     <main className="mx-auto w-full max-w-5xl px-6 py-8">
-      <PageHeader title="Sent mail" lead="In local mode every message goes to the local mail catcher instead of the world. Newest first." />
+      <PageHeader
+        title="Sent mail"
+        lead="In local mode every message goes to the local mail catcher instead of the world. Newest first."
+      />
       {messages.length === 0 ? (
-        <EmptyState title="No mail sent yet">Invitations, password resets and run notices appear here.</EmptyState>
+        <EmptyState title="No mail sent yet">
+          Invitations, password resets and run notices appear here.
+        </EmptyState>
       ) : (
         <ul className="space-y-3">
           {messages.map((m) => (
             <li key={m.id} className="rounded-lg border border-rule bg-white/70 p-4 text-sm">
               <p className="font-medium">{m.subject}</p>
-              <p className="text-xs text-ink-soft">to {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}</p>
+              <p className="text-xs text-ink-soft">
+                to {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}
+              </p>
               <pre className="mt-2 whitespace-pre-wrap font-mono text-xs">{m.text}</pre>
             </li>
           ))}

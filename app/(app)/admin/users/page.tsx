@@ -10,7 +10,10 @@ export default async function AdminUsersPage() {
   if (user.siteRole !== 'admin') notFound();
   return (
     <main className="mx-auto w-full max-w-5xl px-6 py-8">
-      <PageHeader title="Users" lead="Every account on this site. Admins manage accounts; project roles are set by project owners." />
+      <PageHeader
+        title="Users"
+        lead="Every account on this site. Admins manage accounts; project roles are set by project owners."
+      />
       <AdminUsers myId={user.id} />
     </main>
   );

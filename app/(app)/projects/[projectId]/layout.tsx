@@ -2,7 +2,13 @@ import { ProjectNav } from '@/components/project-nav';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { getProject } from '@/lib/services/projects';
 
-export default async function ProjectLayout({ children, params }: { children: React.ReactNode; params: Promise<{ projectId: string }> }) {
+export default async function ProjectLayout({
+  children,
+  params,
+}: {
+  children: React.ReactNode;
+  params: Promise<{ projectId: string }>;
+}) {
   const { projectId } = await params;
   const { role } = await pageProjectRole(projectId);
   const project = await getProject(projectId, role);

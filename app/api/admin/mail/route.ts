@@ -6,6 +6,7 @@ import { listCaughtMail } from '@/lib/services/mailbox';
 
 export const GET = route(async (req) => {
   await requireSiteAdmin(req);
-  if (env().LANEWISE_MODE !== 'local') throw new HttpError(404, 'not_found', 'Caught mail exists only in local mode.');
+  if (env().LANEWISE_MODE !== 'local')
+    throw new HttpError(404, 'not_found', 'Caught mail exists only in local mode.');
   return json({ messages: await listCaughtMail() });
 });

@@ -14,10 +14,18 @@ export async function POST(req: Request, ctx: Ctx) {
   const { nextauth } = await ctx.params;
   if (nextauth.join('/') === 'callback/credentials') {
     const form = await req.clone().formData();
-    const email = String(form.get('email') ?? '').trim().toLowerCase();
+    const email = String(form.get('email') ?? '')
+      .trim()
+      .toLowerCase();
     if (email && (await signInBlocked(email))) {
       return NextResponse.json(
-        { error: { code: 'rate_limited', message: 'Too many sign-in attempts for this address; wait a few minutes and try again.' } },
+        {
+          error: {
+            code: 'rate_limited',
+            message:
+              'Too many sign-in attempts for this address; wait a few minutes and try again.',
+          },
+        },
         { status: 429, headers: { 'Retry-After': '300' } },
       );
     }

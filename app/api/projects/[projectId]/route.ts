@@ -1,6 +1,11 @@
 import { requireProjectRole } from '@/lib/auth/access';
 import { json, jsonBody, route } from '@/lib/http/handler';
-import { deleteProject, getProject, updateProject, updateProjectSchema } from '@/lib/services/projects';
+import {
+  deleteProject,
+  getProject,
+  updateProject,
+  updateProjectSchema,
+} from '@/lib/services/projects';
 
 type P = { projectId: string };
 
@@ -11,7 +16,12 @@ export const GET = route<P>(async (req, { projectId }) => {
 
 export const PATCH = route<P>(async (req, { projectId }) => {
   const input = updateProjectSchema.parse(await jsonBody(req));
-  const { user, role } = await requireProjectRole(projectId, 'owner', req, 'change project settings');
+  const { user, role } = await requireProjectRole(
+    projectId,
+    'owner',
+    req,
+    'change project settings',
+  );
   return json({ project: await updateProject(projectId, user.id, input, role) });
 });
 

@@ -9,8 +9,18 @@ export default async function SettingsPage({ params }: { params: Promise<{ proje
   const project = await getProject(projectId, role);
   return (
     <>
-      <PageHeader title="Settings" lead={role === 'owner' ? 'Name, description and removal of the project.' : 'Only owners change these settings.'} />
-      <ProjectSettingsForm project={{ id: project.id, name: project.name, description: project.description ?? '' }} canEdit={role === 'owner'} />
+      <PageHeader
+        title="Settings"
+        lead={
+          role === 'owner'
+            ? 'Name, description and removal of the project.'
+            : 'Only owners change these settings.'
+        }
+      />
+      <ProjectSettingsForm
+        project={{ id: project.id, name: project.name, description: project.description ?? '' }}
+        canEdit={role === 'owner'}
+      />
     </>
   );
 }

@@ -7,7 +7,10 @@ export default async function TeamPage({ params }: { params: Promise<{ projectId
   const { user, role } = await pageProjectRole(projectId);
   return (
     <>
-      <PageHeader title="Team" lead="Owners invite people and set roles. Editors upload, run and review; viewers read and export." />
+      <PageHeader
+        title="Team"
+        lead="Owners invite people and set roles. Editors upload, run and review; viewers read and export."
+      />
       <TeamManager projectId={projectId} myId={user.id} isOwner={role === 'owner'} />
     </>
   );

@@ -6,6 +6,9 @@ import { analysisMethods } from '@/lib/services/analysis-exports';
 export const GET = route<{ analysisId: string }>(async (req, { analysisId }) => {
   await requireProjectRole(await analysisProject(analysisId), 'viewer', req);
   return new Response(await analysisMethods(analysisId), {
-    headers: { 'content-type': 'text/plain; charset=utf-8', 'content-disposition': `attachment; filename="ordering-${analysisId.slice(0, 8)}-methods.txt"` },
+    headers: {
+      'content-type': 'text/plain; charset=utf-8',
+      'content-disposition': `attachment; filename="ordering-${analysisId.slice(0, 8)}-methods.txt"`,
+    },
   });
 });

@@ -9,6 +9,9 @@ export const GET = route<{ catalogId: string }>(async (req, { catalogId }) => {
   const c = await getCatalog(catalogId);
   const fileName = `${c.name.replace(/[^\w.\-]+/g, '_')}-normalised.csv`;
   return new Response(textToByteStream(catalogCsv(catalogId)), {
-    headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': `attachment; filename="${fileName}"` },
+    headers: {
+      'content-type': 'text/csv; charset=utf-8',
+      'content-disposition': `attachment; filename="${fileName}"`,
+    },
   });
 });

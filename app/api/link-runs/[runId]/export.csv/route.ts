@@ -18,6 +18,9 @@ export const GET = route<{ runId: string }>(async (req, { runId }) => {
     yield* pieces;
   }
   return new Response(textToByteStream(all()), {
-    headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': `attachment; filename="link-run-${runId.slice(0, 8)}-${shape}.csv"` },
+    headers: {
+      'content-type': 'text/csv; charset=utf-8',
+      'content-disposition': `attachment; filename="link-run-${runId.slice(0, 8)}-${shape}.csv"`,
+    },
   });
 });

@@ -11,6 +11,9 @@ export const GET = route<{ runId: string }>(async (req, { runId }) => {
   const { shape } = shapeSchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   await requireProjectRole(await runProject(runId), 'viewer', req);
   return new Response(textToByteStream(await runVotable(runId, shape)), {
-    headers: { 'content-type': 'application/x-votable+xml', 'content-disposition': `attachment; filename="link-run-${runId.slice(0, 8)}-${shape}.vot"` },
+    headers: {
+      'content-type': 'application/x-votable+xml',
+      'content-disposition': `attachment; filename="link-run-${runId.slice(0, 8)}-${shape}.vot"`,
+    },
   });
 });

@@ -1,6 +1,11 @@
 import { requireProjectRole } from '@/lib/auth/access';
 import { json, jsonBody, route } from '@/lib/http/handler';
-import { complexDetail, complexIdSchema, reviewComplex, reviewSchema } from '@/lib/services/complexes';
+import {
+  complexDetail,
+  complexIdSchema,
+  reviewComplex,
+  reviewSchema,
+} from '@/lib/services/complexes';
 import { runProject } from '@/lib/services/link-runs';
 
 type P = { runId: string; complexId: string };
@@ -14,6 +19,11 @@ export const GET = route<P>(async (req, { runId, complexId }) => {
 export const PATCH = route<P>(async (req, { runId, complexId }) => {
   const id = complexIdSchema.parse(complexId);
   const input = reviewSchema.parse(await jsonBody(req));
-  const { user } = await requireProjectRole(await runProject(runId), 'editor', req, 'review complexes');
+  const { user } = await requireProjectRole(
+    await runProject(runId),
+    'editor',
+    req,
+    'review complexes',
+  );
   return json(await reviewComplex(runId, id, user.id, input));
 });

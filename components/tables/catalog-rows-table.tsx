@@ -136,7 +136,8 @@ function filterParams(f: Filters): { params: Record<string, string> } | { proble
         };
       params[key] = String(Number(text));
     }
-    if (lo !== '' && hi !== '' && Number(lo) > Number(hi)) {
+    // Longitude wraps: from 340 to 20 is the range through 0°. Latitude and velocity do not.
+    if (axis !== 'l' && lo !== '' && hi !== '' && Number(lo) > Number(hi)) {
       return { problem: `${axis}: the lower bound ${lo} is above the upper bound ${hi}.` };
     }
   }
@@ -174,7 +175,12 @@ function RangeInputs({
         value={draft[`${axis}Max`]}
         onChange={(e) => set({ ...draft, [`${axis}Max`]: e.target.value })}
       />
-      <span className="text-xs text-ink-soft">{unit}</span>
+      <span
+        className="text-xs text-ink-soft"
+        title={axis === 'l' ? 'A start above the end runs through 0°, e.g. 340 to 20.' : undefined}
+      >
+        {unit}
+      </span>
     </fieldset>
   );
 }

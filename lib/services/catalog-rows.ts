@@ -8,7 +8,7 @@ import type { RowDataPacket } from 'mysql2';
 import { catalogState, pointsPath } from './catalogs';
 import { rowsTable, rowsTableName } from './catalog-tables';
 
-/** Canonical columns a table may sort on, each backed by an index on (catalog_id, column). */
+/** Canonical columns a table may sort on, each backed by an index of the catalog's rows table. */
 const SORTABLE = {
   row: 'row',
   name: 'name',
@@ -63,8 +63,13 @@ export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
   const where: SQL[] = [sql`1 = 1`];
   const table = rowsTable(catalogId);
   if (q.q) where.push(sql`name LIKE ${`%${q.q.replace(/[%_\\]/g, (m) => `\\${m}`)}%`}`);
-  if (q.lMin !== undefined) where.push(sql`l >= ${q.lMin}`);
-  if (q.lMax !== undefined) where.push(sql`l <= ${q.lMax}`);
+  if (q.lMin !== undefined && q.lMax !== undefined && q.lMin > q.lMax) {
+    // From 340° to 20°, say: the range runs through l = 0°.
+    where.push(sql`(l >= ${q.lMin} OR l <= ${q.lMax})`);
+  } else {
+    if (q.lMin !== undefined) where.push(sql`l >= ${q.lMin}`);
+    if (q.lMax !== undefined) where.push(sql`l <= ${q.lMax}`);
+  }
   if (q.bMin !== undefined) where.push(sql`b >= ${q.bMin}`);
   if (q.bMax !== undefined) where.push(sql`b <= ${q.bMax}`);
   if (q.vMin !== undefined) where.push(sql`v >= ${q.vMin}`);

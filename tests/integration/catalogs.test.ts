@@ -56,6 +56,15 @@ describe('catalog upload and ingest', () => {
     expect(filtered.body.rows.every((r) => r.l >= 100 && r.l <= 200)).toBe(true);
     expect(filtered.body.total).toBe(filtered.body.rows.length);
 
+    // A longitude range whose start is above its end runs through l = 0°.
+    const wrapped = await owner.json<{ rows: { l: number }[]; total: number }>(
+      'GET',
+      `/api/catalogs/${c.id}/rows?lMin=340&lMax=20&pageSize=500`,
+    );
+    expect(wrapped.body.total).toBe(all.body.rows.filter((r) => r.l >= 340 || r.l <= 20).length);
+    expect(wrapped.body.total).toBeGreaterThan(10);
+    expect(wrapped.body.rows.every((r) => r.l >= 340 || r.l <= 20)).toBe(true);
+
     const named = await owner.json<{ rows: { name: string }[]; total: number }>(
       'GET',
       `/api/catalogs/${c.id}/rows?q=SRC-0042`,

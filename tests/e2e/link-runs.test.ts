@@ -180,6 +180,30 @@ describe('link runs in the browser', () => {
     );
     expect(saved.body.complex).toMatchObject({ review: 'accepted', reviewNote: note });
 
+    // An independent distance replaces the kinematic one for this complex, and can be taken back.
+    await page.getByLabel('Distance (kpc)').fill('3.2');
+    await page.getByLabel('Why', { exact: true }).fill('maser parallax of the HII region');
+    const put = page.waitForResponse(
+      (r) => r.url().endsWith(`/complexes/${complexId}/distance`) && r.request().method() === 'PUT',
+    );
+    await page.getByRole('button', { name: 'Save distance' }).click();
+    expect((await put).status()).toBe(200);
+    await page.getByText(/^Set to 3\.2 kpc by Link Reviewer/).waitFor();
+    const withDistance = await client.json<{
+      complex: { distanceOverride: { distKpc: number; note: string } | null };
+    }>('GET', `/api/link-runs/${runId}/complexes/${complexId}`);
+    expect(withDistance.body.complex.distanceOverride).toMatchObject({
+      distKpc: 3.2,
+      note: 'maser parallax of the HII region',
+    });
+    await page.getByRole('button', { name: 'Use the kinematic distance' }).click();
+    await page.getByText(/^Ordering analyses give this complex a kinematic distance/).waitFor();
+    const cleared = await client.json<{ complex: { distanceOverride: unknown } }>(
+      'GET',
+      `/api/link-runs/${runId}/complexes/${complexId}`,
+    );
+    expect(cleared.body.complex.distanceOverride).toBeNull();
+
     // The links CSV from the run page.
     await page.getByRole('link', { name: 'Back to the run' }).click();
     await page.waitForURL(new RegExp(`/link-runs/${runId}$`));

@@ -3,16 +3,15 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   useReactTable,
   type PaginationState,
-  type RowData,
   type SortingState,
 } from '@tanstack/react-table';
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
+import { SortableTable } from './sortable-table';
 import { TablePager } from './table-pager';
 import { ErrorNote } from '@/components/ui/panel';
 
@@ -97,15 +96,6 @@ const COLUMNS = [
   num('distKpc', 'distance (kpc)', 'independent distance', 2),
   num('distErrKpc', 'σ dist (kpc)', 'distance error', 2),
 ];
-
-declare module '@tanstack/react-table' {
-  // The augmentation must repeat the library's type parameters even though it does not use them.
-  // eslint-disable-next-line @typescript-eslint/no-unused-vars
-  interface ColumnMeta<TData extends RowData, TValue> {
-    numeric?: boolean;
-    title?: string;
-  }
-}
 
 type Filters = {
   q: string;
@@ -288,59 +278,7 @@ export function CatalogRowsTable({ catalogId }: { catalogId: string }) {
       <div
         className={`overflow-x-auto rounded-md border border-rule bg-white ${isFetching ? 'opacity-70' : ''}`}
       >
-        <table className="w-full text-sm" aria-label="Catalog rows" aria-busy={isFetching}>
-          <thead className="border-b border-rule bg-paper-deep/60 text-xs text-ink-soft">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const meta = h.column.columnDef.meta;
-                  const dir = h.column.getIsSorted();
-                  const label = flexRender(h.column.columnDef.header, h.getContext());
-                  return (
-                    <th
-                      key={h.id}
-                      scope="col"
-                      title={meta?.title}
-                      aria-sort={
-                        dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : undefined
-                      }
-                      className={`px-2 py-1.5 font-medium whitespace-nowrap ${meta?.numeric ? 'text-right' : 'text-left'}`}
-                    >
-                      {h.column.getCanSort() ? (
-                        <button
-                          type="button"
-                          className={`inline-flex items-center gap-1 hover:text-ink ${dir ? 'text-ink' : ''}`}
-                          onClick={h.column.getToggleSortingHandler()}
-                        >
-                          {label}
-                          <span aria-hidden className="w-2">
-                            {dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : ''}
-                          </span>
-                        </button>
-                      ) : (
-                        label
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-rule/60">
-            {table.getRowModel().rows.map((r) => (
-              <tr key={r.id} className="hover:bg-paper-deep/40">
-                {r.getVisibleCells().map((c) => (
-                  <td
-                    key={c.id}
-                    className={`px-2 py-1 whitespace-nowrap ${c.column.columnDef.meta?.numeric ? 'num' : ''}`}
-                  >
-                    {flexRender(c.column.columnDef.cell, c.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <SortableTable table={table} label="Catalog rows" busy={isFetching} />
         {data && data.rows.length === 0 && (
           <p className="px-3 py-6 text-center text-sm text-ink-soft">
             No rows match. Widen the ranges or clear the filters.

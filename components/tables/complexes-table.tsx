@@ -3,7 +3,6 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   useReactTable,
   type PaginationState,
@@ -16,12 +15,14 @@ import { TRACER_KINDS, tracerStyle } from '@/lib/tracers';
 import { REVIEW_TONE, REVIEW_WORDS, fmt, fmtCount } from '@/components/link-runs/format';
 import type { Complex, ComplexPage } from '@/components/link-runs/types';
 import { Button } from '@/components/ui/button';
+import { SortableTable } from './sortable-table';
 import { TablePager } from './table-pager';
 import { ErrorNote } from '@/components/ui/panel';
 import { TracerGlyph } from '@/components/ui/tracer-badge';
 
 /** Columns whose cells are numbers (right-aligned, monospaced). */
-const NUMERIC = new Set(['id', 'size', 'l', 'b', 'v', 'maxSepArcsec', 'maxDvKms', 'reliability']);
+/** Right-aligned, tabular figures (see SortableTable). */
+const NUMERIC = { numeric: true };
 
 const col = createColumnHelper<Complex>();
 
@@ -29,6 +30,7 @@ const col = createColumnHelper<Complex>();
 function columns(href: (id: string) => string) {
   return [
     col.accessor('id', {
+      meta: NUMERIC,
       header: '#',
       cell: (c) => (
         <Link
@@ -50,6 +52,7 @@ function columns(href: (id: string) => string) {
       ),
     }),
     col.accessor('size', {
+      meta: NUMERIC,
       header: 'size',
       cell: (c) => (
         <span
@@ -79,9 +82,10 @@ function columns(href: (id: string) => string) {
         </span>
       ),
     }),
-    col.accessor('l', { header: 'l (°)', cell: (c) => fmt(c.getValue(), 4) }),
-    col.accessor('b', { header: 'b (°)', cell: (c) => fmt(c.getValue(), 4) }),
+    col.accessor('l', { meta: NUMERIC, header: 'l (°)', cell: (c) => fmt(c.getValue(), 4) }),
+    col.accessor('b', { meta: NUMERIC, header: 'b (°)', cell: (c) => fmt(c.getValue(), 4) }),
     col.accessor('v', {
+      meta: NUMERIC,
       header: () => (
         <>
           v<sub>LSR</sub> (km/s)
@@ -89,9 +93,21 @@ function columns(href: (id: string) => string) {
       ),
       cell: (c) => fmt(c.getValue(), 2),
     }),
-    col.accessor('maxSepArcsec', { header: 'max sep (″)', cell: (c) => fmt(c.getValue(), 1) }),
-    col.accessor('maxDvKms', { header: 'max Δv (km/s)', cell: (c) => fmt(c.getValue(), 2) }),
-    col.accessor('reliability', { header: 'reliability', cell: (c) => fmt(c.getValue(), 3) }),
+    col.accessor('maxSepArcsec', {
+      meta: NUMERIC,
+      header: 'max sep (″)',
+      cell: (c) => fmt(c.getValue(), 1),
+    }),
+    col.accessor('maxDvKms', {
+      meta: NUMERIC,
+      header: 'max Δv (km/s)',
+      cell: (c) => fmt(c.getValue(), 2),
+    }),
+    col.accessor('reliability', {
+      meta: NUMERIC,
+      header: 'reliability',
+      cell: (c) => fmt(c.getValue(), 3),
+    }),
     col.accessor('review', {
       header: 'review',
       cell: (c) => {
@@ -366,57 +382,7 @@ export function ComplexesTable({
       <div
         className={`overflow-x-auto rounded-md border border-rule bg-white ${isFetching ? 'opacity-70' : ''}`}
       >
-        <table className="w-full text-sm" aria-label="Complexes" aria-busy={isFetching}>
-          <thead className="border-b border-rule bg-paper-deep/60 text-xs text-ink-soft">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const dir = h.column.getIsSorted();
-                  const label = flexRender(h.column.columnDef.header, h.getContext());
-                  return (
-                    <th
-                      key={h.id}
-                      scope="col"
-                      aria-sort={
-                        dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : undefined
-                      }
-                      className={`px-2 py-1.5 font-medium whitespace-nowrap ${NUMERIC.has(h.column.id) ? 'text-right' : 'text-left'}`}
-                    >
-                      {h.column.getCanSort() ? (
-                        <button
-                          type="button"
-                          className={`inline-flex items-center gap-1 hover:text-ink ${dir ? 'text-ink' : ''}`}
-                          onClick={h.column.getToggleSortingHandler()}
-                        >
-                          {label}
-                          <span aria-hidden className="w-2">
-                            {dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : ''}
-                          </span>
-                        </button>
-                      ) : (
-                        label
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-rule/60">
-            {table.getRowModel().rows.map((r) => (
-              <tr key={r.id} className="hover:bg-paper-deep/40">
-                {r.getVisibleCells().map((c) => (
-                  <td
-                    key={c.id}
-                    className={`px-2 py-1 whitespace-nowrap ${NUMERIC.has(c.column.id) ? 'num' : ''}`}
-                  >
-                    {flexRender(c.column.columnDef.cell, c.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <SortableTable table={table} label="Complexes" busy={isFetching} />
         {data && data.complexes.length === 0 && (
           <p className="px-3 py-6 text-center text-sm text-ink-soft">
             {Object.keys(applied).length

@@ -1,9 +1,9 @@
 import Papa from 'papaparse';
 import { IngestFileError } from './errors';
 import { isNumericLikeCell } from './cells';
-import { RowQueue } from './rowQueue';
+import { RowQueue, rowBatches } from './rowQueue';
 import { TextSource } from './textSource';
-import type { Delimiter, OpenedTable, OpenTableOptions, RowBatch, TableHeader } from './types';
+import type { Delimiter, OpenedTable, OpenTableOptions, TableHeader } from './types';
 
 /** Characters of the file inspected to detect the line break and the delimiter. */
 const SAMPLE_CHARS = 64 * 1024;
@@ -281,21 +281,13 @@ export async function openDelimited(
   if (header.headerLine === null) queue.unshift(first.values, first.line);
   checkDuplicateNames(header);
 
-  const batchSize = options.batchSize ?? 5000;
-  async function* batches(): AsyncGenerator<RowBatch> {
-    try {
-      for (;;) {
-        while (queue.length >= batchSize) yield queue.take(batchSize);
-        if (ended) break;
-        await pull();
-      }
-      if (queue.length > 0) yield queue.take(batchSize);
-      if (queue.rowsTaken === 0) throw noDataRows(header);
-    } finally {
-      await source.close();
-    }
-  }
-  return { header, batches: batches() };
+  const batches = rowBatches(queue, options.batchSize ?? 5000, {
+    pull,
+    ended: () => ended,
+    whenEmpty: () => noDataRows(header),
+    close: () => source.close(),
+  });
+  return { header, batches };
 }
 
 function buildHeader(

@@ -48,3 +48,31 @@ export class RowQueue {
     return this.nextRow - 1;
   }
 }
+
+/**
+ * Hands out the queue's rows in batches of `batchSize`, calling `pull` for more text until
+ * `ended()`; fails with `whenEmpty()` if no data row came at all. `close` runs however it ends.
+ * Both readers (delimited text and VOTable) fill a RowQueue and share this loop.
+ */
+export async function* rowBatches(
+  queue: RowQueue,
+  batchSize: number,
+  io: {
+    pull: () => Promise<void>;
+    ended: () => boolean;
+    whenEmpty: () => Error;
+    close: () => Promise<void>;
+  },
+): AsyncGenerator<RowBatch> {
+  try {
+    for (;;) {
+      while (queue.length >= batchSize) yield queue.take(batchSize);
+      if (io.ended()) break;
+      await io.pull();
+    }
+    if (queue.length > 0) yield queue.take(batchSize);
+    if (queue.rowsTaken === 0) throw io.whenEmpty();
+  } finally {
+    await io.close();
+  }
+}

@@ -1,9 +1,9 @@
 import { SaxesParser, type SaxesTagNS } from 'saxes';
 import { IngestFileError } from './errors';
 import { checkDuplicateNames, noDataRows } from './delimited';
-import { RowQueue } from './rowQueue';
+import { RowQueue, rowBatches } from './rowQueue';
 import { TextSource } from './textSource';
-import type { ColumnInfo, OpenedTable, OpenTableOptions, RowBatch, TableHeader } from './types';
+import type { ColumnInfo, OpenedTable, OpenTableOptions, TableHeader } from './types';
 
 /** Serialisations other than TABLEDATA that a VOTable may use; Lanewise reads TABLEDATA only. */
 const OTHER_SERIALISATIONS = new Set(['BINARY', 'BINARY2', 'FITS']);
@@ -222,19 +222,11 @@ export async function openVotable(
   };
   checkDuplicateNames(header);
 
-  const batchSize = options.batchSize ?? 5000;
-  async function* batches(): AsyncGenerator<RowBatch> {
-    try {
-      for (;;) {
-        while (queue.length >= batchSize) yield queue.take(batchSize);
-        if (ended) break;
-        await pull();
-      }
-      if (queue.length > 0) yield queue.take(batchSize);
-      if (queue.rowsTaken === 0) throw noDataRows(header);
-    } finally {
-      await source.close();
-    }
-  }
-  return { header, batches: batches() };
+  const batches = rowBatches(queue, options.batchSize ?? 5000, {
+    pull,
+    ended: () => ended,
+    whenEmpty: () => noDataRows(header),
+    close: () => source.close(),
+  });
+  return { header, batches };
 }

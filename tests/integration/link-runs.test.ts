@@ -361,6 +361,16 @@ describe('long runs: cancelled, or their worker killed', () => {
     );
   }
 
+  async function startLongRun(): Promise<string> {
+    const start = await t.editor.json<{ run: { id: string } }>(
+      'POST',
+      `/api/projects/${t.projectId}/link-runs`,
+      long(),
+    );
+    expect(start.status).toBe(202);
+    return start.body.run.id;
+  }
+
   beforeAll(async () => {
     t = await makeTeam('long');
     const r = lcg(9);
@@ -371,12 +381,7 @@ describe('long runs: cancelled, or their worker killed', () => {
   }, 300_000);
 
   it('stops a running run on request: cancelled, with nothing of it stored; viewers may not cancel', async () => {
-    const start = await t.editor.json<{ run: { id: string } }>(
-      'POST',
-      `/api/projects/${t.projectId}/link-runs`,
-      long(),
-    );
-    const runId = start.body.run.id;
+    const runId = await startLongRun();
     const conn = await mysql.createConnection(process.env.DATABASE_URL!);
     try {
       await partWay(conn, runId);
@@ -422,12 +427,7 @@ describe('long runs: cancelled, or their worker killed', () => {
   }, 300_000);
 
   it('leaves no half-written run when its worker is killed; the run is picked up again and finishes whole', async () => {
-    const start = await t.editor.json<{ run: { id: string } }>(
-      'POST',
-      `/api/projects/${t.projectId}/link-runs`,
-      long(),
-    );
-    const runId = start.body.run.id;
+    const runId = await startLongRun();
     const conn = await mysql.createConnection(process.env.DATABASE_URL!);
     try {
       // Once a worker is part-way through the job, kill that worker outright.

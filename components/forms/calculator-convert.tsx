@@ -3,14 +3,14 @@
 import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
 import { formatSexagesimal } from '@/lib/astro/coordinates';
-import { api, ApiError } from '@/lib/api-client';
+import { api } from '@/lib/api-client';
 import { readPastedRows, type CoordinateFrame, type PastedRow } from '@/lib/calculators';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { ErrorNote } from '@/components/ui/panel';
 import {
   CsvActions,
-  lineMessage,
+  calculationError,
   PasteArea,
   ResultsTable,
   toCsv,
@@ -42,10 +42,7 @@ export function ConvertCalculator() {
       return { from, rows, points };
     },
     onMutate: () => setError(null),
-    onError: (e) => {
-      const lines = readLinesSafe(text);
-      setError(e instanceof ApiError ? lineMessage(e.message, e.details, lines) : e.message);
-    },
+    onError: (e) => setError(calculationError(e, () => readPastedRows(text, 2))),
   });
   const result = convert.data;
   return (
@@ -94,14 +91,6 @@ export function ConvertCalculator() {
       {result && <ConvertResults result={result} />}
     </div>
   );
-}
-
-function readLinesSafe(text: string): number[] {
-  try {
-    return readPastedRows(text, 2).map((r) => r.line);
-  } catch {
-    return [];
-  }
 }
 
 function ConvertResults({ result }: { result: Converted }) {

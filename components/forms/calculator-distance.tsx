@@ -3,7 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
 import type { KinematicFlag } from '@/lib/astro/kinematic-distance';
-import { api, ApiError } from '@/lib/api-client';
+import { api } from '@/lib/api-client';
 import {
   KINEMATIC_FLAG_TEXT,
   readPastedRows,
@@ -18,7 +18,7 @@ import { ErrorNote } from '@/components/ui/panel';
 import { VelocityDistancePlot } from '@/components/plots/velocity-distance-plot';
 import {
   CsvActions,
-  lineMessage,
+  calculationError,
   PasteArea,
   ResultsTable,
   toCsv,
@@ -108,15 +108,7 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
     },
     onMutate: () => setError(null),
     onSuccess: () => setSelected(0),
-    onError: (e) => {
-      let lines: number[] = [];
-      try {
-        lines = readSources(text).map((s) => s.line);
-      } catch {
-        lines = [];
-      }
-      setError(e instanceof ApiError ? lineMessage(e.message, e.details, lines) : e.message);
-    },
+    onError: (e) => setError(calculationError(e, () => readSources(text))),
   });
   const result = compute.data;
 

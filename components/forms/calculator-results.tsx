@@ -1,6 +1,7 @@
 'use client';
 
 import { useState } from 'react';
+import { ApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 
 /** Rows shown on screen; the CSV always holds every row. */
@@ -150,4 +151,19 @@ export function lineMessage(message: string, details: unknown, lines: number[]):
   const index = typeof first?.index === 'number' ? first.index : null;
   if (index === null || lines[index] === undefined) return message;
   return `Line ${lines[index]}: ${message.replace(/^\w+\[\d+\]: /, '')}`;
+}
+
+/**
+ * The message for a failed calculation: an API error that names an entry is told by the pasted
+ * line it came from (`readLines` re-reads the paste; if that fails the API's words stand).
+ */
+export function calculationError(e: Error, readLines: () => { line: number }[]): string {
+  if (!(e instanceof ApiError)) return e.message;
+  let lines: number[] = [];
+  try {
+    lines = readLines().map((r) => r.line);
+  } catch {
+    // The paste no longer reads: keep the API's message as it is.
+  }
+  return lineMessage(e.message, e.details, lines);
 }

@@ -18,6 +18,10 @@ export interface RotationCurve {
   source: string;
   R0Kpc: number;
   theta0Kms: number;
+  /** Published 1σ uncertainty of R0 (kpc); null where the preset's R0 is an adopted standard, not a measurement. */
+  R0ErrKpc: number | null;
+  /** Published 1σ uncertainty of Θ0 (km/s); null where the preset's Θ0 is an adopted standard, not a measurement. */
+  theta0ErrKms: number | null;
   params: Record<string, number>;
   /** Circular speed (km/s) at Galactocentric radius RKpc (kpc, > 0). */
   thetaKms(RKpc: number): number;
@@ -37,6 +41,8 @@ type ModelSpec = {
   label: string;
   source: string;
   R0Kpc: number;
+  R0ErrKpc: number | null;
+  theta0ErrKms: number | null;
   params: Record<string, number>;
   paramNotes: Record<string, string>;
   /** Θ(R) for the given constants. */
@@ -84,6 +90,9 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
     source:
       'Θ = Θ0 everywhere; R0 = 8.5 kpc, Θ0 = 220 km/s are the IAU 1985 recommended values (Kerr & Lynden-Bell 1986), common practice',
     R0Kpc: 8.5,
+    // IAU 1985 standard values, adopted by resolution without an uncertainty (Kerr & Lynden-Bell 1986)
+    R0ErrKpc: null,
+    theta0ErrKms: null,
     params: { theta0Kms: 220 },
     paramNotes: { theta0Kms: 'Θ0, the constant circular speed (km/s)' },
     theta: (_R0, p) => () => p.theta0Kms,
@@ -93,6 +102,9 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
     source:
       'Brand & Blitz (1993), A&A 275, 67: Θ/Θ0 = a1 (R/R0)^a2 + a3 with R0 = 8.5 kpc, Θ0 = 220 km/s',
     R0Kpc: 8.5,
+    // the IAU 1985 standard values the fit was made with: adopted, so no 1σ (Kerr & Lynden-Bell 1986)
+    R0ErrKpc: null,
+    theta0ErrKms: null,
     params: { a1: 1.0074, a2: 0.0382, a3: 0.00698, theta0Kms: 220 },
     paramNotes: {
       a1: 'a1 (dimensionless)',
@@ -107,6 +119,9 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
     source:
       'Persic, Salucci & Stel (1996) universal rotation curve, eqs. 8–11, with the constants of Reid et al. (2014), ApJ 783, 130: a1 = 241 km/s, a2 = 0.90, a3 = 1.46, R0 = 8.34 kpc',
     R0Kpc: 8.34,
+    // Reid et al. (2014): R0 = 8.34 ± 0.16 kpc, Θ0 = 240 ± 8 km/s
+    R0ErrKpc: 0.16,
+    theta0ErrKms: 8,
     params: { a1: 241, a2: 0.9, a3: 1.46 },
     paramNotes: {
       a1: 'a1, amplitude (km/s)',
@@ -120,6 +135,9 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
     source:
       'Persic, Salucci & Stel (1996) form with the amplitude set by λ, as used by Reid et al. (2019), ApJ 885, 131 (A5 model refit for kinematic distances by Wenger et al.): a2 = 0.977, a3 = 1.623, R0 = 8.166 kpc',
     R0Kpc: 8.166,
+    // Reid et al. (2019): R0 = 8.15 ± 0.15 kpc, Θ0 = 236 ± 7 km/s
+    R0ErrKpc: 0.15,
+    theta0ErrKms: 7,
     params: { a2: 0.977, a3: 1.623, scale: 1 },
     paramNotes: {
       a2: 'a2 = R_opt/R0',
@@ -144,6 +162,8 @@ export type RotationCurvePreset = {
   source: string;
   R0Kpc: number;
   theta0Kms: number | null;
+  R0ErrKpc: number | null;
+  theta0ErrKms: number | null;
   params: Record<string, number>;
   paramNotes: Record<string, string>;
 };
@@ -223,6 +243,8 @@ export function makeRotationCurve(
       source: TABLE_SPEC.source,
       R0Kpc,
       theta0Kms: raw0 * scale,
+      R0ErrKpc: null,
+      theta0ErrKms: null,
       params: Object.freeze({ scale }),
       table: rows,
       thetaKms: (RKpc: number) => scale * tableTheta(rows, RKpc),
@@ -262,9 +284,36 @@ export function makeRotationCurve(
     source: spec.source,
     R0Kpc,
     theta0Kms,
+    R0ErrKpc: spec.R0ErrKpc,
+    theta0ErrKms: spec.theta0ErrKms,
     params,
     thetaKms: (RKpc: number) => (RKpc > 0 ? theta(RKpc) : 0),
   });
+}
+
+/**
+ * The same curve (model, constants, table) with R0 and the Θ0 of the LSR formula replaced, for
+ * Monte Carlo over the Galactic constants. The model keeps its own dependence on R0 (R/R0 in
+ * Brand & Blitz, R/(a2 R0) in the universal curve); Θ0 follows the rule of
+ * {@link makeRotationCurve}'s `theta0Kms` override. The published uncertainties are kept.
+ */
+export function curveWithConstants(
+  curve: RotationCurve,
+  R0Kpc: number,
+  theta0Kms: number,
+): RotationCurve {
+  if (!(R0Kpc > 0) || !Number.isFinite(R0Kpc))
+    throw new RangeError(`curveWithConstants: R0Kpc = ${R0Kpc} must be a positive number`);
+  if (!(theta0Kms > 0) || !Number.isFinite(theta0Kms))
+    throw new RangeError(`curveWithConstants: theta0Kms = ${theta0Kms} must be a positive number`);
+  if (curve.name === 'table') {
+    return makeRotationCurve('table', {
+      R0Kpc,
+      theta0Kms,
+      table: (curve.table ?? []).map(([R, t]) => [R, t]),
+    });
+  }
+  return makeRotationCurve(curve.name, { R0Kpc, theta0Kms, params: { ...curve.params } });
 }
 
 /** Names, labels, sources and default constants of every curve, for settings forms. */
@@ -277,6 +326,8 @@ export const ROTATION_CURVE_PRESETS: ReadonlyArray<RotationCurvePreset> = Object
       source: spec.source,
       R0Kpc: spec.R0Kpc,
       theta0Kms: makeRotationCurve(name).theta0Kms,
+      R0ErrKpc: spec.R0ErrKpc,
+      theta0ErrKms: spec.theta0ErrKms,
       params: { ...spec.params },
       paramNotes: { ...spec.paramNotes },
     };
@@ -287,6 +338,8 @@ export const ROTATION_CURVE_PRESETS: ReadonlyArray<RotationCurvePreset> = Object
     source: TABLE_SPEC.source,
     R0Kpc: TABLE_SPEC.R0Kpc,
     theta0Kms: null,
+    R0ErrKpc: null,
+    theta0ErrKms: null,
     params: {},
     paramNotes: {},
   },

@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { ROTATION_CURVE_PRESETS, makeRotationCurve } from '@/lib/astro/rotation-curves';
+import {
+  ROTATION_CURVE_PRESETS,
+  curveWithConstants,
+  makeRotationCurve,
+} from '@/lib/astro/rotation-curves';
 
 describe('rotation curves', () => {
   it('reproduces Θ(R0) of each published model', () => {
@@ -119,5 +123,49 @@ describe('rotation curves', () => {
       expect(p.source.length).toBeGreaterThan(10);
       if (p.name !== 'table') expect(p.theta0Kms).toBe(makeRotationCurve(p.name).theta0Kms);
     }
+  });
+
+  it('carries the published 1σ of R0 and Θ0', () => {
+    // Reid et al. (2014) abstract: R0 = 8.34 ± 0.16 kpc, Θ0 = 240 ± 8 km/s
+    expect(makeRotationCurve('reid-2014')).toMatchObject({ R0ErrKpc: 0.16, theta0ErrKms: 8 });
+    // Reid et al. (2019) abstract: R0 = 8.15 ± 0.15 kpc, Θ0 = 236 ± 7 km/s
+    expect(makeRotationCurve('reid-2019')).toMatchObject({ R0ErrKpc: 0.15, theta0ErrKms: 7 });
+    // IAU 1985 standard values are adopted, not measured (Kerr & Lynden-Bell 1986)
+    for (const name of ['flat', 'brand-blitz-1993'] as const) {
+      expect(makeRotationCurve(name)).toMatchObject({ R0ErrKpc: null, theta0ErrKms: null });
+    }
+  });
+
+  it('replaces R0 and Θ0 and keeps the model', () => {
+    // universal curve: Θ depends on R only through R/(a2 R0), so Θ_new(R R0'/R0) = Θ(R) Θ0'/Θ(R0) (exact scaling)
+    const r14 = makeRotationCurve('reid-2014');
+    const moved = curveWithConstants(r14, 8.0, 230);
+    expect(moved.R0Kpc).toBe(8.0);
+    expect(moved.theta0Kms).toBeCloseTo(230, 10);
+    expect(moved).toMatchObject({ name: 'reid-2014', R0ErrKpc: 0.16, theta0ErrKms: 8 });
+    for (const R of [3, 8.34, 15]) {
+      expect(moved.thetaKms((R * 8.0) / 8.34)).toBeCloseTo(
+        (r14.thetaKms(R) * 230) / r14.theta0Kms,
+        9,
+      );
+    }
+    // flat: Θ = Θ0 everywhere (definition)
+    expect(curveWithConstants(makeRotationCurve('flat'), 8.2, 233).thetaKms(5)).toBe(233);
+    // table: Θ scaled by Θ0'/Θ(R0') of the rows (documented table rule); 8 kpc row = 220 km/s
+    const table = makeRotationCurve('table', {
+      R0Kpc: 8,
+      table: [
+        [2, 200],
+        [8, 220],
+        [16, 240],
+      ],
+    });
+    const t2 = curveWithConstants(table, 8, 231);
+    expect(t2.thetaKms(16)).toBeCloseTo(252, 10);
+    // same constants give the same curve
+    const same = curveWithConstants(r14, r14.R0Kpc, r14.theta0Kms);
+    expect(same.thetaKms(11)).toBeCloseTo(r14.thetaKms(11), 10);
+    expect(() => curveWithConstants(r14, -1, 230)).toThrow('R0Kpc = -1');
+    expect(() => curveWithConstants(r14, 8, NaN)).toThrow('theta0Kms = NaN');
   });
 });

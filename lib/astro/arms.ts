@@ -126,14 +126,16 @@ function kinked(
   };
 }
 
-type Geometry = {
+/** A log-spiral arm in the form the offset code needs: ln R at the kink azimuth, and tan ψ on each side. */
+export type ArmGeometry = {
   lnRk: number;
   betaK: number;
   tanBelow: number;
   tanAbove: number;
 };
 
-function geometry(arm: ArmSpec): Geometry {
+/** The arm's geometry (throws RangeError for an invalid arm, naming it). */
+export function armGeometry(arm: ArmSpec): ArmGeometry {
   if (!(arm.RrefKpc > 0))
     throw new RangeError(`arm ${arm.name}: RrefKpc = ${arm.RrefKpc} must be positive`);
   if (!(arm.betaMaxDeg > arm.betaMinDeg)) {
@@ -163,14 +165,14 @@ function geometry(arm: ArmSpec): Geometry {
   };
 }
 
-function radiusFrom(g: Geometry, betaDeg: number): number {
+function radiusFrom(g: ArmGeometry, betaDeg: number): number {
   const t = betaDeg <= g.betaK ? g.tanBelow : g.tanAbove;
   return Math.exp(g.lnRk - (betaDeg - g.betaK) * DEG * t);
 }
 
 /** Galactocentric radius (kpc) of the arm's ridge at azimuth betaDeg (the spiral continued beyond its β range if asked). */
 export function armRadiusKpc(arm: ArmSpec, betaDeg: number): number {
-  return radiusFrom(geometry(arm), betaDeg);
+  return radiusFrom(armGeometry(arm), betaDeg);
 }
 
 /** Ridge points of an arm from β_min to β_max (both included) every stepDeg (default 0.5°), for drawing: β (deg), R, x, y (kpc). */
@@ -179,7 +181,7 @@ export function armPoints(
   stepDeg = 0.5,
 ): { betaDeg: Float64Array; RKpc: Float64Array; xKpc: Float64Array; yKpc: Float64Array } {
   if (!(stepDeg > 0)) throw new RangeError(`stepDeg = ${stepDeg} must be positive`);
-  const g = geometry(arm);
+  const g = armGeometry(arm);
   const span = arm.betaMaxDeg - arm.betaMinDeg;
   const n = Math.max(2, Math.ceil(span / stepDeg - 1e-9) + 1);
   const betaDeg = new Float64Array(n);
@@ -210,7 +212,7 @@ export type ArmOffset = {
   withinRange: boolean;
 };
 
-type Prepared = { arm: ArmSpec; g: Geometry; pts: ReturnType<typeof armPoints>; key: string };
+type Prepared = { arm: ArmSpec; g: ArmGeometry; pts: ReturnType<typeof armPoints>; key: string };
 const prepCache = new WeakMap<ArmSpec, Prepared>();
 const SAMPLE_STEP_DEG = 0.5;
 
@@ -230,7 +232,7 @@ function prepare(arm: ArmSpec): Prepared {
   const key = armKey(arm);
   const hit = prepCache.get(arm);
   if (hit && hit.key === key) return hit;
-  const p = { arm, g: geometry(arm), pts: armPoints(arm, SAMPLE_STEP_DEG), key };
+  const p = { arm, g: armGeometry(arm), pts: armPoints(arm, SAMPLE_STEP_DEG), key };
   prepCache.set(arm, p);
   return p;
 }
@@ -241,7 +243,7 @@ function wrap180(deg: number): number {
 }
 
 /** Azimuth offset (deg) of (R, β) from the ridge at the same R: the nearest ridge crossing of that radius. */
-function ridgeAzimuthOffset(g: Geometry, RKpc: number, betaDeg: number): number {
+function ridgeAzimuthOffset(g: ArmGeometry, RKpc: number, betaDeg: number): number {
   const lnR = Math.log(RKpc);
   let best = NaN;
   const consider = (t: number, below: boolean) => {

@@ -1,16 +1,29 @@
 /**
  * Galactic rotation curves Θ(R): circular speed (km/s) against Galactocentric radius R (kpc),
- * each with the Sun–centre distance R0 it was fitted with. Every curve here has an angular speed
- * Θ(R)/R that falls with R, which is what makes kinematic distances single-valued on each side
- * of the tangent point.
+ * each with the Sun–centre distance R0 it was fitted with and, where the fit had one, the
+ * kinematic frame it was fitted in. Every curve here has an angular speed Θ(R)/R that falls
+ * with R, which is what makes kinematic distances single-valued on each side of the tangent
+ * point. Sources and check values: docs/methods.md, "Rotation curves".
  */
 
+import type { SolarMotion } from './velocity';
+
 /** Names of the available rotation-curve models. */
-export type RotationCurveName = 'flat' | 'brand-blitz-1993' | 'reid-2014' | 'reid-2019' | 'table';
+export type RotationCurveName =
+  'flat' | 'brand-blitz-1993' | 'clemens-1985' | 'reid-2014' | 'reid-2019' | 'table';
 
 /**
- * A rotation curve with its constants. `theta0Kms` is always Θ(R0), the value the LSR formula
- * v_LSR = R0 sin l cos b (Θ(R)/R − Θ0/R0) needs; `params` holds the model's own constants.
+ * The frame a curve was fitted in (Reid et al. 2009, 2014): the Sun's motion relative to the
+ * curve's LSR, and the mean peculiar motion of the fitted sources at their own position,
+ * `sourceUKms` toward the Galactic centre and `sourceVKms` in the sense of rotation (km/s).
+ */
+export type CurveFrame = { solarMotion: SolarMotion; sourceUKms: number; sourceVKms: number };
+
+/**
+ * A rotation curve with its constants. `theta0Kms` is the Θ0 of the LSR formula
+ * v_LSR = R0 sin l cos b (Θ(R)/R − Θ0/R0): Θ(R0) for the universal curves and tables, the
+ * formula's own Θ0 for 'flat', 'brand-blitz-1993' and 'clemens-1985', as those curves are used
+ * in practice. `frame` is null for curves meant for standard-LSR velocities as they are.
  */
 export interface RotationCurve {
   name: RotationCurveName;
@@ -18,6 +31,7 @@ export interface RotationCurve {
   source: string;
   R0Kpc: number;
   theta0Kms: number;
+  frame: CurveFrame | null;
   /** Published 1σ uncertainty of R0 (kpc); null where the preset's R0 is an adopted standard, not a measurement. */
   R0ErrKpc: number | null;
   /** Published 1σ uncertainty of Θ0 (km/s); null where the preset's Θ0 is an adopted standard, not a measurement. */
@@ -43,6 +57,9 @@ type ModelSpec = {
   R0Kpc: number;
   R0ErrKpc: number | null;
   theta0ErrKms: number | null;
+  frame: CurveFrame | null;
+  /** True where the LSR formula takes the model constant Θ0 rather than Θ(R0). */
+  theta0IsConstant: boolean;
   params: Record<string, number>;
   paramNotes: Record<string, string>;
   /** Θ(R) for the given constants. */
@@ -84,15 +101,40 @@ function urcReid2019(R0Kpc: number, p: Record<string, number>): (RKpc: number) =
   };
 }
 
+// Clemens (1985), Table 3, for R0 = 8.5 kpc, Θ0 = 220 km/s: Θ(R) = Σ c_i R^i in four ranges of R/R0.
+const CLEMENS_INNER = [0, 3069.81, -15809.8, 43980.1, -68287.3, 54904, -17731];
+const CLEMENS_MIDDLE = [325.0912, -248.1467, 231.87099, -110.73531, 25.073006, -2.110625];
+const CLEMENS_OUTER = [
+  -2342.6564, 2507.60391, -1024.06876, 224.562732, -28.4080026, 2.0697271, -0.08050808, 0.00129348,
+];
+const CLEMENS_FAR_KMS = 234.88;
+
+function polynomial(coeffs: readonly number[], x: number): number {
+  let sum = 0;
+  for (let i = coeffs.length - 1; i >= 0; i--) sum = sum * x + coeffs[i];
+  return sum;
+}
+
+/** Clemens (1985) Θ (km/s) at R (kpc) for his R0 = 8.5 kpc, Θ0 = 220 km/s. */
+function clemensTheta(RKpc: number): number {
+  const x = RKpc / 8.5;
+  if (x < 0.09) return polynomial(CLEMENS_INNER, RKpc);
+  if (x < 0.45) return polynomial(CLEMENS_MIDDLE, RKpc);
+  if (x < 1.6) return polynomial(CLEMENS_OUTER, RKpc);
+  return CLEMENS_FAR_KMS;
+}
+
+// The IAU 1985 standard values are adopted by resolution, without an uncertainty (Kerr & Lynden-Bell 1986).
+const IAU_1985 = { R0Kpc: 8.5, R0ErrKpc: null, theta0ErrKms: null } as const;
+
 const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
   flat: {
     label: 'Flat rotation curve',
     source:
-      'Θ = Θ0 everywhere; R0 = 8.5 kpc, Θ0 = 220 km/s are the IAU 1985 recommended values (Kerr & Lynden-Bell 1986), common practice',
-    R0Kpc: 8.5,
-    // IAU 1985 standard values, adopted by resolution without an uncertainty (Kerr & Lynden-Bell 1986)
-    R0ErrKpc: null,
-    theta0ErrKms: null,
+      'Θ = Θ0 everywhere; R0 = 8.5 kpc, Θ0 = 220 km/s are the IAU 1985 standard values (Kerr & Lynden-Bell 1986, MNRAS 221, 1023, abstract), adopted without an uncertainty',
+    ...IAU_1985,
+    frame: null,
+    theta0IsConstant: true,
     params: { theta0Kms: 220 },
     paramNotes: { theta0Kms: 'Θ0, the constant circular speed (km/s)' },
     theta: (_R0, p) => () => p.theta0Kms,
@@ -100,28 +142,43 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
   'brand-blitz-1993': {
     label: 'Brand & Blitz (1993)',
     source:
-      'Brand & Blitz (1993), A&A 275, 67: Θ/Θ0 = a1 (R/R0)^a2 + a3 with R0 = 8.5 kpc, Θ0 = 220 km/s',
-    R0Kpc: 8.5,
-    // the IAU 1985 standard values the fit was made with: adopted, so no 1σ (Kerr & Lynden-Bell 1986)
-    R0ErrKpc: null,
-    theta0ErrKms: null,
+      'Brand & Blitz (1993), A&A 275, 67, their fitted outer rotation curve: Θ/Θ0 = a1 (R/R0)^a2 + a3, a1 = 1.0074, a2 = 0.0382, a3 = 0.00698, for the IAU 1985 values R0 = 8.5 kpc, Θ0 = 220 km/s. Convention: Θ0 = 220 km/s in the v_LSR formula, as the curve is used in practice (the fit itself gives Θ(R0) = 223.16 km/s). Standard-LSR velocities are used as they are',
+    ...IAU_1985,
+    frame: null,
+    theta0IsConstant: true,
     params: { a1: 1.0074, a2: 0.0382, a3: 0.00698, theta0Kms: 220 },
     paramNotes: {
       a1: 'a1 (dimensionless)',
       a2: 'a2, power-law index',
       a3: 'a3 (dimensionless)',
-      theta0Kms: 'Θ0 of the formula (km/s); Θ(R0) = Θ0 (a1 + a3)',
+      theta0Kms: 'Θ0 of the formula and of the v_LSR formula (km/s)',
     },
     theta: (R0, p) => (R) => p.theta0Kms * (p.a1 * (R / R0) ** p.a2 + p.a3),
+  },
+  'clemens-1985': {
+    label: 'Clemens (1985)',
+    source:
+      'Clemens (1985), ApJ 295, 422, Table 3: polynomial fits of Θ(R) in four ranges of R/R0 (0–0.09, 0.09–0.45, 0.45–1.6, beyond: 234.88 km/s) for the IAU 1985 values R0 = 8.5 kpc, Θ0 = 220 km/s. Convention: Θ0 = 220 km/s in the v_LSR formula (the polynomial gives Θ(R0) = 218.96 km/s); another R0 or Θ0 scales R by R0/8.5 and Θ by Θ0/220. The coefficients are the widely reproduced ones and were not checked against the original table here; they join to within 0.05 km/s at the range boundaries. Standard-LSR velocities are used as they are',
+    ...IAU_1985,
+    frame: null,
+    theta0IsConstant: true,
+    params: { theta0Kms: 220 },
+    paramNotes: { theta0Kms: 'Θ0 of the v_LSR formula (km/s); Θ scales with it' },
+    theta: (R0, p) => (R) => (p.theta0Kms / 220) * clemensTheta((R * 8.5) / R0),
   },
   'reid-2014': {
     label: 'Universal rotation curve, Reid et al. (2014)',
     source:
-      'Persic, Salucci & Stel (1996) universal rotation curve, eqs. 8–11, with the constants of Reid et al. (2014), ApJ 783, 130: a1 = 241 km/s, a2 = 0.90, a3 = 1.46, R0 = 8.34 kpc',
+      'Persic, Salucci & Stel (1996) universal rotation curve, eqs. 8–11, with model A5 of Reid et al. (2014), ApJ 783, 130, Table 4: a1 = 241 km/s, a2 = 0.90, a3 = 1.46, R0 = 8.34 ± 0.16 kpc, Θ0 = 240 ± 8 km/s, solar motion (U⊙, V⊙, W⊙) = (10.7, 15.6, 8.9) km/s and mean source peculiar motion (U_s, V_s) = (2.9, −1.6) km/s. Standard-LSR velocities are moved into this frame before the distance is solved. R0, Θ0 and their uncertainties are as in the abstract; the solar and source motions agree with a published copy of model A5 except V_s, given there as −1.5 km/s: V_s and the table number were not checked against the original here',
     R0Kpc: 8.34,
-    // Reid et al. (2014): R0 = 8.34 ± 0.16 kpc, Θ0 = 240 ± 8 km/s
     R0ErrKpc: 0.16,
     theta0ErrKms: 8,
+    frame: {
+      solarMotion: { uKms: 10.7, vKms: 15.6, wKms: 8.9 },
+      sourceUKms: 2.9,
+      sourceVKms: -1.6,
+    },
+    theta0IsConstant: false,
     params: { a1: 241, a2: 0.9, a3: 1.46 },
     paramNotes: {
       a1: 'a1, amplitude (km/s)',
@@ -133,11 +190,16 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
   'reid-2019': {
     label: 'Universal rotation curve, Reid et al. (2019)',
     source:
-      'Persic, Salucci & Stel (1996) form with the amplitude set by λ, as used by Reid et al. (2019), ApJ 885, 131 (A5 model refit for kinematic distances by Wenger et al.): a2 = 0.977, a3 = 1.623, R0 = 8.166 kpc',
+      'Persic, Salucci & Stel (1996) form with the amplitude set by λ, as used by Reid et al. (2019), ApJ 885, 131, with the A5 model refit for kinematic distances (Wenger et al.): a2 = 0.977, a3 = 1.623, R0 = 8.166 kpc; Reid et al. (2019) give R0 = 8.15 ± 0.15 kpc, Θ0 = 236 ± 7 km/s (abstract). Solar motion (U⊙, V⊙, W⊙) = (10.6, 10.7, 7.6) km/s and mean source peculiar motion (U_s, V_s) = (6.0, −4.3) km/s of model A5 (Table 3); standard-LSR velocities are moved into this frame before the distance is solved. The solar and source motions were not checked against the original table here, and the refit at R0 = 8.166 kpc has its own, slightly different, motions',
     R0Kpc: 8.166,
-    // Reid et al. (2019): R0 = 8.15 ± 0.15 kpc, Θ0 = 236 ± 7 km/s
     R0ErrKpc: 0.15,
     theta0ErrKms: 7,
+    frame: {
+      solarMotion: { uKms: 10.6, vKms: 10.7, wKms: 7.6 },
+      sourceUKms: 6.0,
+      sourceVKms: -4.3,
+    },
+    theta0IsConstant: false,
     params: { a2: 0.977, a3: 1.623, scale: 1 },
     paramNotes: {
       a2: 'a2 = R_opt/R0',
@@ -219,10 +281,10 @@ function positive(name: string, value: number | undefined, fallback: number): nu
 
 /**
  * Builds a rotation curve by name with optional overrides. R0Kpc replaces the model's R0.
- * `params` replaces named model constants (unknown names are rejected). `theta0Kms` means:
- * for 'flat' and 'brand-blitz-1993', the model's own Θ0 constant (for Brand & Blitz, Θ(R0) =
- * Θ0 (a1 + a3) = 223.16 km/s with the published constants); for 'reid-2014', 'reid-2019' and
- * 'table', the curve is rescaled so that Θ(R0) equals it. `table` gives the rows of a 'table'
+ * `params` replaces named model constants (unknown names are rejected). `theta0Kms` is the Θ0
+ * of the LSR formula: for 'flat', 'brand-blitz-1993' and 'clemens-1985' it replaces the model's
+ * own Θ0 constant (Θ scales with it); for 'reid-2014', 'reid-2019' and 'table' the curve is
+ * rescaled so that Θ(R0) equals it. `table` gives the rows of a 'table'
  * curve (R strictly increasing, Θ/R strictly decreasing). The returned object is frozen.
  */
 export function makeRotationCurve(
@@ -245,6 +307,7 @@ export function makeRotationCurve(
       theta0Kms: raw0 * scale,
       R0ErrKpc: null,
       theta0ErrKms: null,
+      frame: null,
       params: Object.freeze({ scale }),
       table: rows,
       thetaKms: (RKpc: number) => scale * tableTheta(rows, RKpc),
@@ -266,7 +329,7 @@ export function makeRotationCurve(
   const R0Kpc = positive('R0Kpc', overrides.R0Kpc, spec.R0Kpc);
   if (overrides.theta0Kms !== undefined) {
     const target = positive('theta0Kms', overrides.theta0Kms, 0);
-    if (name === 'flat' || name === 'brand-blitz-1993') params.theta0Kms = target;
+    if (spec.theta0IsConstant) params.theta0Kms = target;
     else {
       const key = name === 'reid-2014' ? 'a1' : 'scale';
       params[key] *= target / spec.theta(R0Kpc, params)(R0Kpc);
@@ -274,10 +337,11 @@ export function makeRotationCurve(
   }
   Object.freeze(params);
   const theta = spec.theta(R0Kpc, params);
-  const theta0Kms = theta(R0Kpc);
-  if (!Number.isFinite(theta0Kms) || theta0Kms <= 0) {
-    throw new RangeError(`rotation curve ${name}: these constants give Θ(R0) = ${theta0Kms} km/s`);
+  const thetaAtR0 = theta(R0Kpc);
+  if (!Number.isFinite(thetaAtR0) || thetaAtR0 <= 0) {
+    throw new RangeError(`rotation curve ${name}: these constants give Θ(R0) = ${thetaAtR0} km/s`);
   }
+  const theta0Kms = spec.theta0IsConstant ? params.theta0Kms : thetaAtR0;
   return Object.freeze({
     name,
     label: spec.label,
@@ -286,6 +350,7 @@ export function makeRotationCurve(
     theta0Kms,
     R0ErrKpc: spec.R0ErrKpc,
     theta0ErrKms: spec.theta0ErrKms,
+    frame: spec.frame,
     params,
     thetaKms: (RKpc: number) => (RKpc > 0 ? theta(RKpc) : 0),
   });

@@ -7,11 +7,14 @@ import {
 
 describe('rotation curves', () => {
   it('reproduces Θ(R0) of each published model', () => {
-    // Brand & Blitz 1993 (SCIENCE.md §3): Θ(R0) = 220 (a1 + a3) = 223.16 km/s
-    expect(makeRotationCurve('brand-blitz-1993').theta0Kms).toBeCloseTo(223.16, 2);
-    // Reid et al. 2014 URC constants: Θ(R0) = 241.0 km/s (SCIENCE.md §3)
+    // Brand & Blitz 1993: the fit gives Θ(R0) = 220 (a1 + a3) = 223.16 km/s (hand computation) …
+    const bb = makeRotationCurve('brand-blitz-1993');
+    expect(bb.thetaKms(8.5)).toBeCloseTo(223.16, 2);
+    // … but the v_LSR formula takes Θ0 = 220 km/s, as the curve is used in practice (common practice)
+    expect(bb.theta0Kms).toBe(220);
+    // Reid et al. 2014 URC constants: Θ(R0) = 241.0 km/s (hand computation from their a1, a2, a3)
     expect(makeRotationCurve('reid-2014').theta0Kms).toBeCloseTo(241.0, 1);
-    // Reid et al. 2019 form (Wenger et al. refit): Θ(R0) ≈ 237.0 km/s (SCIENCE.md §3)
+    // Reid et al. 2019 form (Wenger et al. refit): Θ(R0) ≈ 237.0 km/s (hand computation)
     expect(makeRotationCurve('reid-2019').theta0Kms).toBeCloseTo(237.0, 0);
     // IAU 1985 values R0 = 8.5 kpc, Θ0 = 220 km/s (common practice)
     const flat = makeRotationCurve('flat');
@@ -21,7 +24,7 @@ describe('rotation curves', () => {
   });
 
   it('uses the published constants and R0 of each model', () => {
-    // SCIENCE.md §3
+    // Brand & Blitz (1993) constants; Reid et al. (2014) model A5; Reid et al. (2019) refit
     expect(makeRotationCurve('brand-blitz-1993').params).toMatchObject({
       a1: 1.0074,
       a2: 0.0382,
@@ -44,7 +47,8 @@ describe('rotation curves', () => {
     // documented override semantics
     expect(makeRotationCurve('flat', { theta0Kms: 240, R0Kpc: 8.3 }).theta0Kms).toBe(240);
     const bb = makeRotationCurve('brand-blitz-1993', { theta0Kms: 230 });
-    expect(bb.theta0Kms).toBeCloseTo(230 * (1.0074 + 0.00698), 10);
+    expect(bb.theta0Kms).toBe(230);
+    expect(bb.thetaKms(8.5)).toBeCloseTo(230 * (1.0074 + 0.00698), 10);
     const r14 = makeRotationCurve('reid-2014', { theta0Kms: 236 });
     expect(r14.theta0Kms).toBeCloseTo(236, 10);
     expect(r14.thetaKms(12) / makeRotationCurve('reid-2014').thetaKms(12)).toBeCloseTo(
@@ -115,6 +119,7 @@ describe('rotation curves', () => {
     expect(ROTATION_CURVE_PRESETS.map((p) => p.name)).toEqual([
       'flat',
       'brand-blitz-1993',
+      'clemens-1985',
       'reid-2014',
       'reid-2019',
       'table',
@@ -167,5 +172,41 @@ describe('rotation curves', () => {
     expect(same.thetaKms(11)).toBeCloseTo(r14.thetaKms(11), 10);
     expect(() => curveWithConstants(r14, -1, 230)).toThrow('R0Kpc = -1');
     expect(() => curveWithConstants(r14, 8, NaN)).toThrow('theta0Kms = NaN');
+  });
+
+  it('follows the Clemens (1985) polynomials', () => {
+    const c = makeRotationCurve('clemens-1985');
+    expect(c.R0Kpc).toBe(8.5); // Clemens (1985): IAU 1985 R0
+    expect(c.theta0Kms).toBe(220); // Clemens (1985): IAU 1985 Θ0, used in the v_LSR formula
+    // Clemens (1985) Table 3 coefficients evaluated by hand (the paper's tabulated Θ not checked here)
+    expect(c.thetaKms(4)).toBeCloseTo(213.057, 2);
+    expect(c.thetaKms(8)).toBeCloseTo(223.446, 2);
+    expect(c.thetaKms(12)).toBeCloseTo(224.97, 2);
+    expect(c.thetaKms(20)).toBe(234.88); // Clemens (1985): constant beyond 1.6 R0
+    // the four pieces join at R/R0 = 0.09, 0.45 and 1.6 (independent check of the coefficients)
+    for (const x of [0.09, 0.45, 1.6]) {
+      const R = x * 8.5;
+      expect(Math.abs(c.thetaKms(R * (1 - 1e-9)) - c.thetaKms(R))).toBeLessThan(0.05);
+    }
+    // scaling rule: Θ0' = 240 scales Θ by 240/220, R0' = 8 scales R by 8/8.5 (documented)
+    const moved = makeRotationCurve('clemens-1985', { R0Kpc: 8, theta0Kms: 240 });
+    expect(moved.thetaKms(4 * (8 / 8.5))).toBeCloseTo((213.057 * 240) / 220, 2);
+  });
+
+  it('states the frame each curve was fitted in', () => {
+    // Reid et al. (2014) model A5: (U, V, W)⊙ = (10.7, 15.6, 8.9), (U_s, V_s) = (2.9, −1.6) km/s
+    expect(makeRotationCurve('reid-2014').frame).toEqual({
+      solarMotion: { uKms: 10.7, vKms: 15.6, wKms: 8.9 },
+      sourceUKms: 2.9,
+      sourceVKms: -1.6,
+    });
+    // curves without a fitted frame take standard-LSR velocities as they are (common practice)
+    for (const name of ['flat', 'brand-blitz-1993', 'clemens-1985'] as const) {
+      expect(makeRotationCurve(name).frame).toBeNull();
+    }
+    // curveWithConstants keeps the frame
+    expect(curveWithConstants(makeRotationCurve('reid-2019'), 8.2, 230).frame).toEqual(
+      makeRotationCurve('reid-2019').frame,
+    );
   });
 });

@@ -2,15 +2,15 @@
  * Star-forming complexes: where they are born on the arms, how far they have moved through the
  * pattern, and which tracers they show at their age. A complex is born where gas enters an arm
  * (phase τ_birth before the ridge crossing); after an age a it sits at phase τ = τ_birth + a,
- * i.e. at azimuth offset Δβ = (Ω(R) − Ω_p)·τ from the ridge. Gas (CO, HI) is present at all
- * ages, thinning with age; HII regions appear after the star-formation delay and fade after
- * their lifetime; OB associations appear after the delay and stay. The stated order is reversed
- * outside corotation because Ω − Ω_p changes sign there.
+ * i.e. at azimuth offset Δβ = (Ω(R) − Ω_p)·τ from the ridge. Gas (CO, HI) thins with age and is
+ * dispersed soon after the star-formation delay; HII regions appear after the delay and fade
+ * after their lifetime; OB associations appear after the delay and stay. The stated order is
+ * reversed outside corotation because Ω − Ω_p changes sign there.
  */
 import { armRadiusKpc } from '@/lib/astro/arms';
 import { fromGalactocentric, polarToXy, ROTATION_SENSE } from '@/lib/astro/galactocentric';
 import { azimuthOffsetForPhaseDeg, type GalaxyModel } from './model';
-import { sigmaFromHwhm, TRACERS, type Tracer } from './params';
+import { sigmaFromHwhm, TRACERS, type PhaseParams, type Tracer } from './params';
 import { bernoulli, poisson, uniform, type Rng } from './random';
 
 /** The complexes, one entry per complex in each array. Angles deg, lengths kpc, times Myr. */
@@ -51,6 +51,17 @@ type Plan = {
   members: Record<Tracer, number>;
 };
 
+/**
+ * Share of a complex's initial gas left at ageMyr: linear from 1 at birth to gasAtDelay at the
+ * star-formation delay, then linear to 0 over the dispersal time.
+ */
+function gasFraction(ph: PhaseParams, ageMyr: number): number {
+  const delay = ph.starFormationDelayMyr;
+  if (ageMyr < delay) return 1 - ((1 - ph.gasAtDelay) * ageMyr) / delay;
+  const left = 1 - (ageMyr - delay) / ph.gasDispersalMyr;
+  return left > 0 ? ph.gasAtDelay * left : 0;
+}
+
 /** Draws one complex: birth point on an arm, age and phase, height, velocity and member counts. */
 function planComplex(model: GalaxyModel, rng: Rng): Plan {
   const { params, R0Kpc } = model;
@@ -68,15 +79,16 @@ function planComplex(model: GalaxyModel, rng: Rng): Plan {
     const { xKpc, yKpc } = polarToXy(RKpc, betaDeg);
     const zKpc = zSigmaKpc * rng.normal();
     const vRandomKms = params.complexVelSigmaKms * rng.normal();
-    const gas = 1 - ((1 - ph.gasFloor) * ageMyr) / ph.maxAgeMyr;
+    const gas = gasFraction(ph, ageMyr);
     const stars = ageMyr >= ph.starFormationDelayMyr;
     const hiiOn = stars && ageMyr < ph.starFormationDelayMyr + ph.hiiLifetimeMyr;
     const members: Record<Tracer, number> = {
-      CO: 1 + poisson(rng, ph.coMeanExtra * gas),
+      CO: gas > 0 ? 1 + poisson(rng, ph.coMeanExtra * gas) : 0,
       HI: poisson(rng, ph.hiMean * gas),
       HII: hiiOn ? 1 + poisson(rng, ph.hiiMeanExtra) : 0,
       OB: stars && bernoulli(rng, ph.obProbability) ? 1 : 0,
     };
+    if (TRACERS.every((t) => members[t] === 0)) continue;
     if (fromGalactocentric(xKpc, yKpc, zKpc, R0Kpc).distKpc < params.minDistKpc) continue;
     return {
       armIndex,

@@ -7,11 +7,8 @@
 import type { ArmSpec } from '@/lib/astro/arms';
 import { ROTATION_SENSE, polarToXy, toGalactocentric } from '@/lib/astro/galactocentric';
 import { corotationRadiusKpc, KMS_KPC_PER_MYR } from '@/lib/astro/pattern-speed';
-import {
-  angularSpeedKmsKpc,
-  makeRotationCurve,
-  type RotationCurve,
-} from '@/lib/astro/rotation-curves';
+import { angularSpeedKmsKpc, type RotationCurve } from '@/lib/astro/rotation-curves';
+import { makeGalaxyCurve } from './curve';
 import type { ModelParams } from './params';
 
 const DEG = Math.PI / 180;
@@ -25,9 +22,9 @@ export type GalaxyModel = {
   corotationKpc: number | null;
 };
 
-/** Builds the rotation curve from its preset name and solves for corotation. */
+/** Builds the generator's rotation curve from its constants and solves for corotation. */
 export function makeGalaxyModel(params: ModelParams): GalaxyModel {
-  const curve = makeRotationCurve(params.rotationCurve);
+  const curve = makeGalaxyCurve(params.curve);
   return {
     params,
     curve,
@@ -40,7 +37,7 @@ export function makeGalaxyModel(params: ModelParams): GalaxyModel {
  * Azimuthal offset (deg, positive = ahead in the sense of rotation) reached after a time
  * phaseMyr (Myr, relative to the ridge crossing) by material circulating at radius RKpc through
  * a pattern of speed Ω_p: Δβ = (Ω(R) − Ω_p)·t, the inverse of `delayMyr` in
- * `@/lib/astro/pattern-speed` (SCIENCE.md §6).
+ * `@/lib/astro/pattern-speed` (Δφ = (Ω − Ω_p)·t as in Egusa et al. 2004, PASJ 56, L45).
  */
 export function azimuthOffsetForPhaseDeg(
   model: GalaxyModel,

@@ -103,9 +103,35 @@ function checkModel(model: ModelParams): void {
   if (model.arms.length === 0) {
     throw new GeneratorOptionError('model.arms', model.arms.length, 'needs at least one arm');
   }
+  for (const key of ['R0Kpc', 'theta0Kms', 'turnoverKpc', 'stepKpc', 'maxKpc'] as const) {
+    if (!(model.curve[key] > 0)) {
+      throw new GeneratorOptionError(`model.curve.${key}`, model.curve[key], 'must be positive');
+    }
+  }
   const { phase } = model;
   if (!(phase.maxAgeMyr > 0)) {
     throw new GeneratorOptionError('model.phase.maxAgeMyr', phase.maxAgeMyr, 'must be positive');
+  }
+  if (!(phase.starFormationDelayMyr >= 0)) {
+    throw new GeneratorOptionError(
+      'model.phase.starFormationDelayMyr',
+      phase.starFormationDelayMyr,
+      'must be zero or positive',
+    );
+  }
+  if (!(phase.gasAtDelay > 0 && phase.gasAtDelay <= 1)) {
+    throw new GeneratorOptionError(
+      'model.phase.gasAtDelay',
+      phase.gasAtDelay,
+      'must lie in (0, 1] (a share of the initial gas)',
+    );
+  }
+  if (!(phase.gasDispersalMyr > 0)) {
+    throw new GeneratorOptionError(
+      'model.phase.gasDispersalMyr',
+      phase.gasDispersalMyr,
+      'must be positive (Infinity keeps the gas)',
+    );
   }
   const shareSum = TRACERS.reduce((sum, t) => sum + model.tracers[t].interloperShare, 0);
   if (Math.abs(shareSum - 1) > 1e-9) {

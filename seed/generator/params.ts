@@ -5,7 +5,7 @@
  * kept to magnitudes the trade considers typical; the truth file records all of them.
  */
 import type { ArmSpec } from '@/lib/astro/arms';
-import type { RotationCurveName } from '@/lib/astro/rotation-curves';
+import type { GalaxyCurveParams } from './curve';
 
 /** Tracer classes the generator produces, in catalog order. */
 export const TRACERS = ['HI', 'CO', 'HII', 'OB'] as const;
@@ -42,7 +42,10 @@ export type PhaseParams = {
   birthPhaseMyr: number;
   /** 1σ scatter (Myr) of the birth phase between complexes. */
   birthJitterMyr: number;
-  /** Complex ages are uniform on [0, maxAgeMyr]. */
+  /**
+   * Complex ages are uniform on [0, maxAgeMyr]; a complex that shows no tracer at its age is
+   * drawn again (it would be in no catalog).
+   */
   maxAgeMyr: number;
   /** Star-formation delay: young-star members exist only once a complex is this old (Myr). */
   starFormationDelayMyr: number;
@@ -50,10 +53,17 @@ export type PhaseParams = {
   hiiLifetimeMyr: number;
   /** Probability that a complex past the delay shows an OB association. */
   obProbability: number;
-  /** Mean extra CO and HI members of a newborn complex; falls linearly to gasFloor of it at maxAgeMyr. */
+  /**
+   * Gas of a complex: its mean member counts fall linearly from full at birth to gasAtDelay of
+   * full at the star-formation delay, then to none over gasDispersalMyr as the young stars
+   * disperse the cloud (stellar feedback). While gas remains, a complex has at least one CO
+   * member plus a Poisson number of extra CO (mean coMeanExtra × the gas fraction) and of HI
+   * (mean hiMean × the gas fraction).
+   */
   coMeanExtra: number;
   hiMean: number;
-  gasFloor: number;
+  gasAtDelay: number;
+  gasDispersalMyr: number;
   /** Mean extra HII regions (beyond the first) of a complex in its HII phase. */
   hiiMeanExtra: number;
 };
@@ -72,8 +82,8 @@ export type DistanceParams = {
 
 /** Every model parameter of the demo galaxy. */
 export type ModelParams = {
-  /** Rotation-curve preset name for `makeRotationCurve`; R0 and Θ0 come from the preset. */
-  rotationCurve: RotationCurveName;
+  /** The generator's own rotation curve (none of the analysis presets), R0 included. */
+  curve: GalaxyCurveParams;
   /** Spiral pattern speed Ω_p, km/s/kpc. */
   patternSpeedKmsKpc: number;
   /** The two ridge lines (log spirals). */
@@ -83,7 +93,7 @@ export type ModelParams = {
   complexHwhmPc: number;
   /** 1σ line-of-sight velocity (km/s) of complexes about circular rotation plus streaming. */
   complexVelSigmaKms: number;
-  /** Peak streaming speed (km/s) on a ridge line, falling off as a Gaussian across the arm. */
+  /** Peak in-plane streaming speed (km/s) on a ridge line, falling off as a Gaussian across the arm. */
   streamingKms: number;
   /** 1σ half-width (kpc, perpendicular to the ridge) of the streaming profile. */
   streamingWidthKpc: number;
@@ -99,50 +109,73 @@ export type ModelParams = {
   tracers: Record<Tracer, TracerParams>;
 };
 
+/** Pitch angle (deg) of the demo's arms, near the Milky Way's ≈ 12–13° (Vallée 2015; from memory). */
+const PITCH_DEG = 14;
+
 /**
- * The demo's two-armed density wave: trailing log spirals (pitch 12.5°) 180° apart, from
- * R ≈ 4 kpc to R ≈ 15 kpc. The names are the demo scenario's own.
+ * The demo's two-armed density wave: trailing log spirals of pitch 14°, 180° apart, through
+ * R = 7 kpc at β = 10° and 190°, each from R ≈ 4 kpc (inner end) to R ≈ 15 kpc (outer end).
+ * Seen from the Sun the ridges have tangents at l ≈ 51° (first quadrant) and l ≈ 283° and
+ * ≈ 327° (fourth quadrant), where the tangent-point method has data. The names are the demo
+ * scenario's own.
  */
 export const DEFAULT_ARMS: ArmSpec[] = [
   {
     name: 'Cinderveil Arm',
     RrefKpc: 7.0,
     betaRefDeg: 10,
-    pitchDeg: 12.5,
-    betaMinDeg: -187,
-    betaMaxDeg: 154,
+    pitchDeg: PITCH_DEG,
+    betaMinDeg: -165,
+    betaMaxDeg: 138,
   },
   {
     name: 'Tidelace Arm',
     RrefKpc: 7.0,
     betaRefDeg: 190,
-    pitchDeg: 12.5,
-    betaMinDeg: -7,
-    betaMaxDeg: 334,
+    pitchDeg: PITCH_DEG,
+    betaMinDeg: 15,
+    betaMaxDeg: 318,
   },
 ];
 
-/** Default model: see each field's doc; magnitudes are typical values of the trade (from memory). */
+/**
+ * Default model: see each field's doc. The numbers are invented but of the sizes the field
+ * reports: R0 = 8.2 kpc and Θ0 = 236 km/s (Reid et al. 2019 quote 8.15 kpc and 236 km/s), a
+ * pattern speed of 18.5 km/s/kpc that puts corotation at ≈ 12.6 kpc (inside the outer ends of
+ * the arms), young stars 10 Myr after a complex's birth (within the 4–13 Myr of Egusa et al.
+ * 2009, ApJ 697, 1870) with the cloud dispersed 2 Myr later (Kruijssen et al. 2019, Nature 569,
+ * 519; from memory), and streaming of 10 km/s on the arms. The median young-star minus gas phase
+ * is then ≈ 7.4 Myr and the separation across the arms ≈ 100–300 pc inside corotation, as
+ * measured in the Milky Way (Vallée 2014, AJ 148, 5; Hou & Han 2015, MNRAS 454, 626).
+ */
 export const DEFAULT_MODEL: ModelParams = {
-  rotationCurve: 'reid-2014',
-  patternSpeedKmsKpc: 22,
+  curve: {
+    R0Kpc: 8.2,
+    theta0Kms: 236,
+    turnoverKpc: 0.8,
+    outerSlopeKmsKpc: -1.7,
+    stepKpc: 0.25,
+    maxKpc: 30,
+  },
+  patternSpeedKmsKpc: 18.5,
   arms: DEFAULT_ARMS,
   phase: {
-    birthPhaseMyr: -8,
+    birthPhaseMyr: -6,
     birthJitterMyr: 1,
-    maxAgeMyr: 14,
-    starFormationDelayMyr: 7,
-    hiiLifetimeMyr: 5,
+    maxAgeMyr: 15,
+    starFormationDelayMyr: 10,
+    hiiLifetimeMyr: 4,
     obProbability: 0.8,
     coMeanExtra: 2,
     hiMean: 1.2,
-    gasFloor: 0.2,
+    gasAtDelay: 0.4,
+    gasDispersalMyr: 2,
     hiiMeanExtra: 0.5,
   },
   complexHwhmPc: 50,
   complexVelSigmaKms: 4,
-  streamingKms: 6,
-  streamingWidthKpc: 0.3,
+  streamingKms: 10,
+  streamingWidthKpc: 0.4,
   interloperVelSigmaKms: 6,
   interloperScaleLengthKpc: 3.5,
   interloperMinRKpc: 3,

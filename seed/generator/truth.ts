@@ -5,11 +5,13 @@
  * and is written as one CSV per catalog.
  */
 import type { ArmSpec } from '@/lib/astro/arms';
+import { KMS_KPC_PER_MYR } from '@/lib/astro/pattern-speed';
+import { median as sampleMedian } from '@/lib/stats/summary';
 import type { ComplexTable } from './complexes';
 import type { TracerCatalog } from './catalog';
 import type { GalaxyModel } from './model';
 import type { ResolvedOptions } from './options';
-import { KMS_KPC_PER_MYR } from '@/lib/astro/pattern-speed';
+import { orderingTruth, type OrderingTruth } from './ordering-truth';
 import { TRACERS, type ModelParams, type Tracer } from './params';
 
 /** Medians over the complex members of one class on one side of corotation. */
@@ -31,6 +33,11 @@ export type GalaxyTruth = {
     perTracer: Record<Tracer, { rows: number; members: number; interlopers: number }>;
   };
   conventions: Record<string, string>;
+  /**
+   * The generator's own rotation curve: a 'table' curve of `@/lib/astro/rotation-curves` with
+   * these rows (R kpc, Θ km/s) and R0, tabulated from the analytic form stated in `source`
+   * with the constants of `model.curve` (`galaxyCurve(truth)` rebuilds it).
+   */
   rotationCurve: {
     name: string;
     label: string;
@@ -38,6 +45,7 @@ export type GalaxyTruth = {
     R0Kpc: number;
     theta0Kms: number;
     params: Record<string, number>;
+    table: Array<[number, number]>;
   };
   R0Kpc: number;
   patternSpeedKmsKpc: number;
@@ -47,6 +55,8 @@ export type GalaxyTruth = {
   arms: ArmSpec[];
   model: ModelParams;
   realized: Record<Tracer, { insideCorotation: OffsetSummary; outsideCorotation: OffsetSummary }>;
+  /** The realized ordering across the arms at true positions, for checking an analysis. */
+  ordering: OrderingTruth;
 };
 
 const CONVENTIONS: Record<string, string> = {
@@ -63,14 +73,18 @@ const CONVENTIONS: Record<string, string> = {
   sizes:
     'Angular diameter = physical diameter / true distance (small angle). HI SIZE_ARCMIN, HII DIAM_ARCMIN and OB diam are diameters in arcmin; CO radius_arcsec is half the diameter, in arcsec.',
   positions: 'No centroid error is injected: written positions are the true ones, rounded.',
+  streaming:
+    'In-plane streaming at a point d⊥ (kpc) from the nearest ridge (pitch ψ): δv = −s·V·exp(−½ (d⊥/w)²)·n̂ with V = model.streamingKms, w = model.streamingWidthKpc, n̂ = cos ψ ê_R + sin ψ ê_ahead and s = +1 inside corotation, −1 outside: inside corotation an inflow of V cos ψ and a lag behind rotation of V sin ψ on the ridge (after the shocked flow of Roberts 1969), fading across the arm; projected on the line of sight (truth column v_stream_kms).',
+  ordering:
+    'ordering.*: medians over complex members at their true positions (offsets from offsetFromArms as in armOffsets); gas = HI + CO members, young = HII + OB members; young minus gas = median(young) − median(gas), positive when the young stars lie ahead of the gas in the sense of rotation. effectiveTimescaleMyr = median phase of young members − median phase of gas members. Radial bins: members with R in [RMinKpc, RMaxKpc).',
 };
 
 function median(values: number[]): number | null {
-  if (values.length === 0) return null;
-  const s = Float64Array.from(values).sort();
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : 0.5 * (s[m - 1] + s[m]);
+  return values.length === 0 ? null : sampleMedian(values);
 }
+
+const CURVE_FORM =
+  'Θ(R) = V_a (2/π) arctan(R / turnoverKpc) + outerSlopeKmsKpc (R − R0), V_a such that Θ(R0) = theta0Kms (arctan rise of Courteau 1997, AJ 114, 2402); constants in model.curve, tabulated every model.curve.stepKpc and interpolated linearly';
 
 function summarize(
   cat: TracerCatalog,
@@ -127,11 +141,12 @@ export function buildTruth(
     conventions: CONVENTIONS,
     rotationCurve: {
       name: curve.name,
-      label: curve.label,
-      source: curve.source,
+      label: 'Demo galaxy rotation curve (generator-own; none of the analysis presets)',
+      source: CURVE_FORM,
       R0Kpc: curve.R0Kpc,
       theta0Kms: curve.theta0Kms,
       params: { ...curve.params },
+      table: (curve.table ?? []).map(([R, theta]) => [R, theta]),
     },
     R0Kpc: model.R0Kpc,
     patternSpeedKmsKpc: model.params.patternSpeedKmsKpc,
@@ -140,5 +155,6 @@ export function buildTruth(
     arms: model.params.arms,
     model: model.params,
     realized,
+    ordering: orderingTruth(model, catalogs),
   };
 }

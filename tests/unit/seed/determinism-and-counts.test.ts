@@ -75,7 +75,7 @@ describe('counts', () => {
       }
     }
     expect(interlopers).toBe(137);
-    // Every complex has at least one CO member, so every id appears.
+    // Every complex shows at least one tracer (empty ones are redrawn), so every id appears.
     expect(ids.size).toBe(200);
     const rows = TRACERS.reduce((s, t) => s + g.catalogs[t].count, 0);
     expect(g.truth.counts.rows).toBe(rows);

@@ -13,6 +13,8 @@ import { equatorialToGalactic, parseDecDeg, parseRaDeg } from '@/lib/astro/coord
 import { toGalactocentric } from '@/lib/astro/galactocentric';
 import { convertVelocityConvention, helioToLsrKms } from '@/lib/astro/velocity';
 import {
+  DEFAULT_MODEL,
+  galaxyCurve,
   generateGalaxy,
   truthFileName,
   writeDemoFiles,
@@ -158,7 +160,8 @@ describe('written catalogs against the truth', () => {
       expect(Math.abs(vLsrRadio - vTrue[i])).toBeLessThan(5 * 1.5);
     }
     // The optical/radio difference is real: v_opt − v_radio = v_radio² / (c − v_radio) (exact
-    // for the conventions of SCIENCE.md §2), about 0.03 km/s at 100 km/s.
+    // for radio v = c (1 − ν/ν₀) and optical v = c (ν₀/ν − 1); common practice), about 0.03 km/s
+    // at 100 km/s.
     const fast = cat.vLsrKms.findIndex((v) => Math.abs(v) > 60);
     expect(fast).toBeGreaterThanOrEqual(0);
     const v = cat.vLsrKms[fast];
@@ -196,10 +199,21 @@ describe('written catalogs against the truth', () => {
     expect(t.seed).toBe(7);
     expect(t.arms).toHaveLength(2);
     expect(t.arms[0]).toHaveProperty('pitchDeg');
-    expect(t.rotationCurve).toMatchObject({ name: 'reid-2014' });
-    expect(t.rotationCurve.R0Kpc).toBeCloseTo(8.34, 10); // Reid et al. 2014 R0
-    expect(t.patternSpeedKmsKpc).toBe(22);
+    expect(t.rotationCurve).toMatchObject({ name: 'table' });
+    expect(t.rotationCurve.R0Kpc).toBe(DEFAULT_MODEL.curve.R0Kpc); // the generator's own R0
+    expect(t.model.curve).toEqual(DEFAULT_MODEL.curve);
+    expect(t.patternSpeedKmsKpc).toBe(DEFAULT_MODEL.patternSpeedKmsKpc);
     expect(t.corotationKpc).toBeGreaterThan(5);
+    expect(t.conventions.streaming).toMatch(/exp\(−½ \(d⊥\/w\)²\)/);
+    // The curve read back from the file is the one the sources were made with.
+    const fromFile = galaxyCurve(t);
+    for (const R of [3.1, 4.07, 8.2, 12.345, 17.9]) {
+      expect(fromFile.thetaKms(R)).toBe(galaxyCurve(galaxy.truth).thetaKms(R));
+    }
+    expect(fromFile.theta0Kms).toBeCloseTo(DEFAULT_MODEL.curve.theta0Kms, 9);
+    // The ordering truth survives the JSON round trip (numbers, nulls and bins).
+    expect(t.ordering).toEqual(JSON.parse(JSON.stringify(galaxy.truth.ordering)));
+    expect(t.ordering.youngMinusGasAzimuthDeg).toHaveLength(10);
     expect(t.model.phase).toHaveProperty('starFormationDelayMyr');
     expect(t.model.tracers.CO).toHaveProperty('intraShiftPc');
     expect(t.counts.complexes).toBe(400);

@@ -8,10 +8,12 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { offsetFromArms } from '@/lib/astro/arms';
 import { vLsrAtKms } from '@/lib/astro/kinematic-distance';
 import { delayMyr } from '@/lib/astro/pattern-speed';
-import { makeRotationCurve, type RotationCurve } from '@/lib/astro/rotation-curves';
+import type { RotationCurve } from '@/lib/astro/rotation-curves';
 import {
   DEFAULT_MODEL,
   DIST_METHOD,
+  galaxyCurve,
+  galaxyThetaKms,
   generateGalaxy,
   TRACERS,
   type DemoGalaxy,
@@ -22,7 +24,7 @@ let g: DemoGalaxy;
 let curve: RotationCurve;
 beforeAll(() => {
   g = generateGalaxy({ seed: 2024, complexes: 3000, interlopers: 1000 });
-  curve = makeRotationCurve('reid-2014');
+  curve = galaxyCurve(g.truth);
 });
 
 function median(values: number[]): number {
@@ -51,14 +53,24 @@ function memberOffsets(t: Tracer, inside: boolean): number[] {
 }
 
 describe('ordering across the arms', () => {
-  it('puts corotation inside the sampled disc', () => {
-    // Reid et al. 2014 curve is nearly flat at ~240 km/s: R_CR ≈ 240/22 ≈ 10.9 kpc (from memory).
-    expect(g.truth.corotationKpc).toBeGreaterThan(10);
-    expect(g.truth.corotationKpc).toBeLessThan(12);
+  it('puts corotation in the outer disc, inside the outer ends of the arms', () => {
+    // Independent of the bisection: scan the analytic curve for Θ(R)/R = Ω_p on a 1-pc grid.
+    const p = g.truth.model.curve;
+    const omegaP = g.truth.patternSpeedKmsKpc;
+    let scanned = NaN;
+    for (let R = 4; R < 20; R += 0.001) {
+      if (galaxyThetaKms(p, R) / R < omegaP) {
+        scanned = R;
+        break;
+      }
+    }
+    expect(Math.abs((g.truth.corotationKpc as number) - scanned)).toBeLessThan(0.002); // grid step
+    expect(g.truth.corotationKpc).toBeGreaterThan(11); // outer disc (demo choice)
+    expect(g.truth.corotationKpc).toBeLessThan(14); // arms reach R ≈ 15 kpc
   });
 
   it('has gas behind and young stars ahead of the ridges inside corotation', () => {
-    // Density-wave ordering (Roberts 1969; PRODUCT.md "what the field knows"): upstream gas.
+    // Density-wave ordering (Roberts 1969): gas upstream of the young stars.
     for (const t of ['HI', 'CO'] as const)
       expect(median(memberOffsets(t, true)), t).toBeLessThan(0);
     for (const t of ['HII', 'OB'] as const)
@@ -66,7 +78,7 @@ describe('ordering across the arms', () => {
   });
 
   it('reverses the order outside corotation', () => {
-    // Ω − Ω_p < 0 beyond corotation, so the pattern overtakes the gas (SCIENCE.md §6).
+    // Ω − Ω_p < 0 beyond corotation, so the pattern overtakes the gas (Roberts 1969).
     for (const t of ['HI', 'CO'] as const)
       expect(median(memberOffsets(t, false)), t).toBeGreaterThan(0);
     for (const t of ['HII', 'OB'] as const)
@@ -84,7 +96,7 @@ describe('ordering across the arms', () => {
     for (let c = 0; c < 200; c++) {
       if (Math.abs(cx.phaseMyr[c]) < 0.05) continue;
       const t = delayMyr(cx.azimuthOffsetDeg[c], cx.RKpc[c], curve, g.truth.patternSpeedKmsKpc);
-      expect(t).toBeCloseTo(cx.phaseMyr[c], 9); // exact inverse, SCIENCE.md §6
+      expect(t).toBeCloseTo(cx.phaseMyr[c], 9); // exact inverse of Δβ = (Ω − Ω_p)·t
       // offsetFromArms at the centre measures the injected offset (same R, same ridge).
       const off = offsetFromArms(cx.xKpc[c], cx.yKpc[c], g.truth.arms, g.truth.R0Kpc);
       expect(off.armIndex).toBe(cx.armIndex[c]);
@@ -92,18 +104,24 @@ describe('ordering across the arms', () => {
     }
   });
 
-  it('keeps only gas in complexes younger than the star-formation delay', () => {
+  it('keeps only gas before the star-formation delay and no gas once the cloud is dispersed', () => {
     const { members, ageMyr } = g.complexes;
-    const delay = DEFAULT_MODEL.phase.starFormationDelayMyr;
+    const { starFormationDelayMyr: delay, gasDispersalMyr } = DEFAULT_MODEL.phase;
     let young = 0;
+    let dispersed = 0;
     for (let c = 0; c < g.complexes.count; c++) {
-      expect(members.CO[c]).toBeGreaterThanOrEqual(1);
+      expect(TRACERS.some((t) => members[t][c] > 0)).toBe(true);
       if (ageMyr[c] < delay) {
         young++;
+        expect(members.CO[c]).toBeGreaterThanOrEqual(1);
         expect(members.HII[c] + members.OB[c]).toBe(0);
+      } else if (ageMyr[c] >= delay + gasDispersalMyr) {
+        dispersed++;
+        expect(members.CO[c] + members.HI[c]).toBe(0);
       }
     }
-    expect(young).toBeGreaterThan(1000);
+    expect(young).toBeGreaterThan(1500);
+    expect(dispersed).toBeGreaterThan(300);
   });
 });
 
@@ -159,7 +177,7 @@ describe('velocities', () => {
       const dir = [0, 1].map((k) => Math.cos(psi) * inward[k] + Math.sin(psi) * behind[k]);
       const expected =
         DEFAULT_MODEL.streamingKms *
-        Math.exp(-0.5 * (cat.perpOffsetKpc[i] / 0.3) ** 2) *
+        Math.exp(-0.5 * (cat.perpOffsetKpc[i] / g.truth.model.streamingWidthKpc) ** 2) *
         (dir[0] * u[0] + dir[1] * u[1]);
       expect(cat.vStreamKms[i]).toBeCloseTo(expected, 6);
       checked++;
@@ -177,7 +195,7 @@ describe('layers and distances', () => {
         if (cat.complexId[i] >= 0 === members) z.push(cat.zKpc[i] * 1000);
       return z;
     };
-    // HWHM of a Gaussian = 1.1774 σ; 50 pc injected (PRODUCT.md: CO FWHM of order 100 pc).
+    // HWHM of a Gaussian = 1.1774 σ; 50 pc injected (CO layer FWHM of order 100 pc; from memory).
     const coHwhm = 1.1774 * std(zOf('CO', true));
     expect(coHwhm).toBeGreaterThan(42);
     expect(coHwhm).toBeLessThan(58);

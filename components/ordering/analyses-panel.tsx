@@ -10,13 +10,24 @@ import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { EmptyState, ErrorNote, Panel, ProgressBar } from '@/components/ui/panel';
 import { api } from '@/lib/api-client';
+import { analysisSchema } from '@/lib/schemas/analyses';
 import { ANALYSIS_POLL_MS } from './analysis-view';
 import type { CheckedSettings } from './settings-model';
-import type { AnalysisListItem, AnalysisParams } from './types';
-import { ANALYSIS_STATUS_WORDS, fmtP, isFinalAnalysis, pc } from './words';
+import type { AnalysisListItem, AnalysisRequest } from './types';
+import { ANALYSIS_STATUS_WORDS, isFinalAnalysis, pc, pcCi, sharedDecimals } from './words';
 
-/** Fewest bootstrap and permutation resamples an analysis may ask for (SCIENCE.md §6). */
+/** Fewest bootstrap resamples an analysis may ask for (docs/methods.md, "Intervals"). */
 export const MIN_RESAMPLES = 2000;
+
+/** The request body checked by the endpoint's own schema: the body, or the schema's messages. */
+function checkedBody(body: AnalysisRequest): { ok: true } | { ok: false; problems: string[] } {
+  const parsed = analysisSchema.safeParse(body);
+  if (parsed.success) return { ok: true };
+  return {
+    ok: false,
+    problems: parsed.error.issues.map((i) => `${i.path.join('.') || 'request'}: ${i.message}`),
+  };
+}
 
 /** Query key of a project's analysis list. */
 export const analysesKey = (projectId: string) => ['analyses', projectId];
@@ -47,8 +58,14 @@ function RunForm({ projectId, checked }: { projectId: string; checked: CheckedSe
     problems.push(`Resamples: “${resamples}” must be a whole number of at least ${MIN_RESAMPLES}.`);
   if (!Number.isInteger(nSeed) || nSeed < 0)
     problems.push(`Seed: “${seed}” must be a whole number ≥ 0.`);
+  const body: AnalysisRequest | null =
+    checked.ok && problems.length === 0
+      ? { runId: chosen, resamples: nResamples, seed: nSeed, ...checked.value }
+      : null;
+  const schema = body ? checkedBody(body) : null;
+  if (schema && !schema.ok) problems.push(...schema.problems);
   const start = useMutation({
-    mutationFn: (body: AnalysisParams) =>
+    mutationFn: (body: AnalysisRequest) =>
       api<{ analysis: { id: string } }>(`/api/projects/${projectId}/analyses`, {
         method: 'POST',
         json: body,
@@ -75,8 +92,8 @@ function RunForm({ projectId, checked }: { projectId: string; checked: CheckedSe
       className="space-y-3"
       onSubmit={(e) => {
         e.preventDefault();
-        if (!checked.ok || problems.length) return;
-        start.mutate({ runId: chosen, resamples: nResamples, seed: nSeed, ...checked.value });
+        if (!body || problems.length) return;
+        start.mutate(body);
       }}
     >
       <div className="grid gap-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1fr)]">
@@ -89,7 +106,7 @@ function RunForm({ projectId, checked }: { projectId: string; checked: CheckedSe
         </SelectField>
         <TextField
           label="Resamples"
-          hint={`bootstrap and permutation, ≥ ${MIN_RESAMPLES}`}
+          hint={`bootstrap, ≥ ${MIN_RESAMPLES}`}
           inputMode="numeric"
           value={resamples}
           onChange={(e) => setResamples(e.target.value)}
@@ -114,6 +131,17 @@ function RunForm({ projectId, checked }: { projectId: string; checked: CheckedSe
   );
 }
 
+function YoungMinusGasCell({ summary }: { summary: AnalysisListItem['summary'] }) {
+  const m = summary?.youngMinusGasKpc ?? null;
+  const c = summary?.youngMinusGasCi95 ?? null;
+  const d = sharedDecimals([m, ...(c ?? [])].map((x) => (x === null ? null : x * 1000)));
+  return (
+    <>
+      {pc(m, d)} <span className="text-xs text-ink-soft">[{pcCi(c, d)}]</span>
+    </>
+  );
+}
+
 function AnalysisList({ projectId, selected }: { projectId: string; selected: string | null }) {
   const { data, error, isPending } = useAnalyses(projectId);
   if (error) return <ErrorNote>Could not load the analyses: {error.message}</ErrorNote>;
@@ -131,9 +159,10 @@ function AnalysisList({ projectId, selected }: { projectId: string; selected: st
           <tr>
             <th className="px-3 py-2">Link run</th>
             <th className="px-3 py-2">Status</th>
-            <th className="px-3 py-2 text-right">Gas → stars (pc)</th>
-            <th className="px-3 py-2 text-right">p</th>
-            <th className="px-3 py-2 text-right">Delay (Myr)</th>
+            <th className="px-3 py-2 text-right">Young − gas (pc, ahead +) [95 %]</th>
+            <th className="px-3 py-2 text-right">Fitted Ω_p (km/s/kpc)</th>
+            <th className="px-3 py-2 text-right">Fitted t (Myr)</th>
+            <th className="px-3 py-2">Assumed Ω_p</th>
             <th className="px-3 py-2">Started</th>
             <th className="px-3 py-2">
               <span className="sr-only">Open</span>
@@ -168,9 +197,16 @@ function AnalysisList({ projectId, selected }: { projectId: string; selected: st
                   )}
                 </span>
               </td>
-              <td className="num px-3 py-2">{pc(a.summary?.gasToStarsMedianKpc, 1)}</td>
-              <td className="num px-3 py-2">{fmtP(a.summary?.pValue)}</td>
-              <td className="num px-3 py-2">{fmt(a.summary?.delayMedianMyr, 1)}</td>
+              <td className="num px-3 py-2">
+                <YoungMinusGasCell summary={a.summary} />
+              </td>
+              <td className="num px-3 py-2">{fmt(a.summary?.patternSpeedKmsKpc, 1)}</td>
+              <td className="num px-3 py-2">{fmt(a.summary?.timescaleMyr, 1)}</td>
+              <td className="px-3 py-2 text-xs">
+                {a.params.patternSpeed == null
+                  ? 'none'
+                  : `assumed ${fmt(a.params.patternSpeed, 1)} km/s/kpc`}
+              </td>
               <td className="px-3 py-2 text-xs text-ink-soft">{fmtWhen(a.createdAt)}</td>
               <td className="px-3 py-2">
                 {a.id === selected ? (

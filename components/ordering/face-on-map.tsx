@@ -34,6 +34,7 @@ export function FaceOnMap({
   arms,
   R0Kpc,
   corotationKpc,
+  corotationSource,
   complexes = [],
   sources = [],
   size = 620,
@@ -44,6 +45,8 @@ export function FaceOnMap({
   arms: ArmSpec[];
   R0Kpc: number;
   corotationKpc: number | null;
+  /** Where the pattern speed behind the corotation circle came from, for the caption. */
+  corotationSource: 'fitted' | 'assumed' | null;
   complexes?: ResultComplex[];
   sources?: ResultSource[];
   size?: number;
@@ -115,8 +118,8 @@ export function FaceOnMap({
           at R0 = {fmt(R0Kpc, 2)} kpc, longitude l = 90° toward −y, rotation clockwise (Reid et al.
           2014 frame).{' '}
           {corotationKpc !== null
-            ? `Dashed circle: corotation at R = ${fmt(corotationKpc, 2)} kpc.`
-            : 'No corotation radius for this pattern speed.'}{' '}
+            ? `Dashed circle: corotation at R = ${fmt(corotationKpc, 2)} kpc (${corotationSource ?? 'stated'} pattern speed).`
+            : 'No corotation circle: no pattern speed, or none with a corotation radius.'}{' '}
           Dotted circle: the solar circle.
           {segments.length > 0 &&
             ' Grey segments: each complex’s distance interval along its line of sight.'}
@@ -258,9 +261,12 @@ function CentreGlyph({ x, y }: { x: number; y: number }) {
 export function describeComplex(c: ResultComplex): string {
   const parts = [
     `Complex ${c.id}: l ${axisNumber(c.lDeg, 2)}°, b ${axisNumber(c.bDeg, 2)}°, v ${c.vLsrKms === null ? '—' : `${fmt(c.vLsrKms, 1)} km/s`}`,
-    `d ${fmt(c.distKpc, 2)} kpc (${CHOICE_WORDS[c.choice] ?? c.choice}${c.distLoKpc !== null && c.distHiKpc !== null ? `, ${fmt(c.distLoKpc, 2)}–${fmt(c.distHiKpc, 2)}` : ''})`,
+    `d ${fmt(c.distKpc, 2)} kpc (${CHOICE_WORDS[c.choice] ?? c.choice}${c.distLoKpc !== null && c.distHiKpc !== null ? `; 68 % ${fmt(c.distLoKpc, 2)}–${fmt(c.distHiKpc, 2)}` : ''}${c.distCi95 ? `; 95 % ${fmt(c.distCi95[0], 2)}–${fmt(c.distCi95[1], 2)}` : ''}${c.pNear !== null ? `; P(near) ${fmt(c.pNear, 2)}` : ''})`,
   ];
-  if (c.arm) parts.push(`${c.arm}, ${fmt(c.perpOffsetKpc, 3)} kpc from the ridge`);
+  if (c.arm)
+    parts.push(
+      `${c.arm}, ${fmt(c.perpOffsetKpc, 3)} kpc from the ridge${c.perpCi95 ? ` (95 % ${fmt(c.perpCi95[0], 3)} to ${fmt(c.perpCi95[1], 3)})` : ''}, ahead +`,
+    );
   parts.push(
     c.used
       ? 'used'

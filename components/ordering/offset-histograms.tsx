@@ -6,8 +6,6 @@ import { PLOT_COLOURS, axisNumber } from '@/components/link-runs/svg-figure';
 import { fmt } from '@/components/link-runs/format';
 import { markerPath, tracerStyle, TRACER_KINDS, type TracerKind } from '@/lib/tracers';
 import { ZoomFigure, type Domain, type HoverTarget } from './zoom-figure';
-import type { RotationCurve } from '@/lib/astro/rotation-curves';
-import { complexFlowSign } from './flow';
 import type { Ci, ClassSummary, OrderingResult } from './types';
 import { pc } from './words';
 
@@ -95,41 +93,25 @@ function MedianMark({
 }
 
 /**
- * Histograms of the offsets from the arm ridge (kpc) of every class's sources, signed downstream
- * as the class statistics are (offset × flow sign: positive downstream of the ridge, i.e. ahead
- * in rotation inside corotation and behind outside), overlaid as step outlines of the share of
- * each class per bin, with each class's median and 95 % bootstrap interval on top; and the
- * histogram of the per-complex gas-to-young-star offset across the arm, signed the same way.
- * Only complexes that enter the signed statistics (used, on a known side of corotation) count.
+ * Histograms of the offsets from the arm ridge (kpc, as measured: positive ahead of the ridge in
+ * the sense of rotation) of every class's sources at their complexes' median distances, overlaid
+ * as step outlines of the share of each class per bin, with each class's median and its 95 %
+ * interval (which carries the distance errors) on top. Only complexes the analysis used count.
  */
 export function OffsetHistograms({
   result,
-  curve,
-  patternSpeedKmsKpc,
   fileStem,
 }: {
   result: OrderingResult;
-  curve: RotationCurve;
-  patternSpeedKmsKpc: number;
   fileStem: string;
 }) {
-  const sign = useMemo(
-    () =>
-      new Map(
-        result.complexes.map((c) => [
-          c.id,
-          c.used ? complexFlowSign(c, curve, patternSpeedKmsKpc) : 0,
-        ]),
-      ),
-    [result.complexes, curve, patternSpeedKmsKpc],
-  );
   const series = useMemo(() => {
+    const used = new Set(result.complexes.filter((c) => c.used).map((c) => c.id));
     const by = new Map<TracerKind, number[]>();
     for (const s of result.sources) {
-      const f = sign.get(s.complexId) ?? 0;
-      if (s.perpOffsetKpc === null || f === 0) continue;
+      if (s.perpOffsetKpc === null || !used.has(s.complexId)) continue;
       const list = by.get(s.kind) ?? [];
-      list.push(f * s.perpOffsetKpc);
+      list.push(s.perpOffsetKpc);
       by.set(s.kind, list);
     }
     return TRACER_KINDS.filter((k) => by.has(k)).map((k) => ({
@@ -137,7 +119,7 @@ export function OffsetHistograms({
       values: Float64Array.from(by.get(k)!),
       summary: result.classes.find((c) => c.kind === k) as ClassSummary | undefined,
     }));
-  }, [result, sign]);
+  }, [result]);
   const classHists = useMemo(() => {
     const b = binAll(
       series.map((s) => s.values),
@@ -145,20 +127,6 @@ export function OffsetHistograms({
     );
     return { edges: b.edges, list: series.map((s) => ({ ...s, hist: b.bin(s.values) })) };
   }, [series]);
-  const across = useMemo(
-    () =>
-      Float64Array.from(
-        result.complexes.flatMap((c) => {
-          const f = sign.get(c.id) ?? 0;
-          return f !== 0 && c.gasToStarsAcrossKpc !== null
-            ? [f * c.gasToStarsAcrossKpc * 1000]
-            : [];
-        }),
-      ),
-    [result.complexes, sign],
-  );
-  const acrossHist = useMemo(() => binAll([across], 24).bin(across), [across]);
-
   const classDomain = useMemo<Domain>(() => {
     const e = classHists.edges;
     let top = 0.05;
@@ -182,133 +150,143 @@ export function OffsetHistograms({
       ),
     [classHists],
   );
-  const acrossDomain = useMemo<Domain>(() => {
-    const e = acrossHist.edges;
-    return { x0: e[0], x1: e[e.length - 1], y0: 0, y1: Math.max(1, ...acrossHist.counts) * 1.25 };
-  }, [acrossHist]);
-  const acrossTargets = useMemo<HoverTarget[]>(
-    () =>
-      acrossHist.counts.map((c, i) => ({
-        x: (acrossHist.edges[i] + acrossHist.edges[i + 1]) / 2,
-        y: c,
-        text: `${c} complexes with a gas-to-young-star offset between ${fmt(acrossHist.edges[i], 1)} and ${fmt(acrossHist.edges[i + 1], 1)} pc`,
-      })),
-    [acrossHist],
-  );
-  const g = result.gasToStars;
 
   return (
-    <div className="grid gap-6 xl:grid-cols-2">
-      <ZoomFigure
-        title="Offsets from the arm ridge by class"
-        fileStem={`${fileStem}-offsets-by-class`}
-        width={560}
-        height={340}
-        domain={classDomain}
-        zoomY={false}
-        xLabel="offset from the ridge, downstream positive (kpc)"
-        yLabel="share of the class’s sources"
-        targets={classTargets}
-        testId="ordering-class-histograms"
-        caption="Offsets signed along the flow: positive is downstream of the ridge (ahead in rotation inside corotation, behind outside). Step outlines: the share of each class’s sources per bin, from the complexes used. On top: each class’s median with its 95 % bootstrap interval."
-        overlay={() => (
-          <g transform="translate(470 24)">
-            {classHists.list.map((s, i) => {
-              const t = tracerStyle(s.kind);
-              return (
-                <g key={s.kind} transform={`translate(0 ${i * 15})`}>
-                  <path d={markerPath(t.shape, 0, -3, 4)} fill={t.colour} />
-                  <text x={8} y={0} fill={PLOT_COLOURS.ink}>
-                    {t.label} ({s.hist.n})
-                  </text>
-                </g>
-              );
-            })}
-          </g>
-        )}
-      >
-        {({ px, py }) => (
-          <>
-            <line
-              x1={px(0)}
-              x2={px(0)}
-              y1={0}
-              y2={1e4}
-              stroke={PLOT_COLOURS.ink}
-              strokeWidth={0.8}
-            />
-            {classHists.list.map((s) => {
-              const t = tracerStyle(s.kind);
-              return (
-                <path
-                  key={s.kind}
-                  d={stepPath(s.hist, px, py, true)}
-                  fill={t.colour}
-                  fillOpacity={0.08}
-                  stroke={t.colour}
-                  strokeWidth={1.6}
-                />
-              );
-            })}
-            {classHists.list.map((s, i) => {
-              const t = tracerStyle(s.kind);
-              return (
-                <MedianMark
-                  key={`m${s.kind}`}
-                  median={s.summary?.medianOffsetKpc ?? null}
-                  ci={s.summary?.ci95 ?? null}
-                  colour={t.colour}
-                  shape={t.shape}
-                  row={i}
-                  px={px}
-                  top={14}
-                />
-              );
-            })}
-          </>
-        )}
-      </ZoomFigure>
-      <ZoomFigure
-        title="Gas-to-young-star offset across the arm, per complex"
-        fileStem={`${fileStem}-gas-to-stars`}
-        width={560}
-        height={340}
-        domain={acrossDomain}
-        zoomY={false}
-        xLabel="young stars minus gas across the arm, downstream positive (pc)"
-        yLabel="complexes"
-        targets={acrossTargets}
-        testId="ordering-gas-to-stars-histogram"
-        caption={`Positive: the young stars lie downstream of their gas (ahead in rotation inside corotation, behind outside). On top: the median (${pc(g.medianAcrossKpc, 1)} pc) with its 95 % bootstrap interval; ${across.length} complexes.`}
-      >
-        {({ px, py }) => (
-          <>
-            <line
-              x1={px(0)}
-              x2={px(0)}
-              y1={0}
-              y2={1e4}
-              stroke={PLOT_COLOURS.ink}
-              strokeWidth={0.8}
-            />
-            <path
-              d={stepPath(acrossHist, px, py, false)}
-              fill={PLOT_COLOURS.accent}
-              fillOpacity={0.18}
-              stroke={PLOT_COLOURS.accent}
-              strokeWidth={1.6}
-            />
-            <MedianMark
-              median={g.medianAcrossKpc === null ? null : g.medianAcrossKpc * 1000}
-              ci={g.ci95 ? [g.ci95[0] * 1000, g.ci95[1] * 1000] : null}
-              colour={PLOT_COLOURS.ink}
-              row={0}
-              px={px}
-              top={14}
-            />
-          </>
-        )}
-      </ZoomFigure>
-    </div>
+    <ZoomFigure
+      title="Offsets from the arm ridge by class"
+      fileStem={`${fileStem}-offsets-by-class`}
+      width={560}
+      height={340}
+      domain={classDomain}
+      zoomY={false}
+      xLabel="offset from the ridge, ahead in rotation positive (kpc)"
+      yLabel="share of the class’s sources"
+      targets={classTargets}
+      testId="ordering-class-histograms"
+      caption="Offsets as measured: positive ahead of the ridge in the sense of rotation, each source at its complex’s median distance. Step outlines: the share of each class’s sources per bin, from the complexes used. On top: each class’s median with its 95 % interval over complexes and distance draws."
+      overlay={() => (
+        <g transform="translate(470 24)">
+          {classHists.list.map((s, i) => {
+            const t = tracerStyle(s.kind);
+            return (
+              <g key={s.kind} transform={`translate(0 ${i * 15})`}>
+                <path d={markerPath(t.shape, 0, -3, 4)} fill={t.colour} />
+                <text x={8} y={0} fill={PLOT_COLOURS.ink}>
+                  {t.label} ({s.hist.n})
+                </text>
+              </g>
+            );
+          })}
+        </g>
+      )}
+    >
+      {({ px, py }) => (
+        <>
+          <line x1={px(0)} x2={px(0)} y1={0} y2={1e4} stroke={PLOT_COLOURS.ink} strokeWidth={0.8} />
+          {classHists.list.map((s) => {
+            const t = tracerStyle(s.kind);
+            return (
+              <path
+                key={s.kind}
+                d={stepPath(s.hist, px, py, true)}
+                fill={t.colour}
+                fillOpacity={0.08}
+                stroke={t.colour}
+                strokeWidth={1.6}
+              />
+            );
+          })}
+          {classHists.list.map((s, i) => {
+            const t = tracerStyle(s.kind);
+            return (
+              <MedianMark
+                key={`m${s.kind}`}
+                median={s.summary?.medianOffsetKpc ?? null}
+                ci={s.summary?.ci95 ?? null}
+                colour={t.colour}
+                shape={t.shape}
+                row={i}
+                px={px}
+                top={14}
+              />
+            );
+          })}
+        </>
+      )}
+    </ZoomFigure>
+  );
+}
+
+/**
+ * The histogram of each used complex's young-star minus gas offset across the arm within the
+ * complex (pc, positive ahead in rotation), with the median and its 95 % interval on top. These
+ * offsets are bounded by the link radius: they show how young stars sit on their own cloud.
+ */
+export function IntraComplexHistogram({
+  result,
+  fileStem,
+}: {
+  result: OrderingResult;
+  fileStem: string;
+}) {
+  const across = useMemo(
+    () =>
+      Float64Array.from(
+        result.complexes.flatMap((c) =>
+          c.used && c.intraAcrossKpc !== null ? [c.intraAcrossKpc * 1000] : [],
+        ),
+      ),
+    [result.complexes],
+  );
+  const hist = useMemo(() => binAll([across], 24).bin(across), [across]);
+  const domain = useMemo<Domain>(() => {
+    const e = hist.edges;
+    return { x0: e[0], x1: e[e.length - 1], y0: 0, y1: Math.max(1, ...hist.counts) * 1.25 };
+  }, [hist]);
+  const targets = useMemo<HoverTarget[]>(
+    () =>
+      hist.counts.map((c, i) => ({
+        x: (hist.edges[i] + hist.edges[i + 1]) / 2,
+        y: c,
+        text: `${c} complexes with young stars between ${fmt(hist.edges[i], 1)} and ${fmt(hist.edges[i + 1], 1)} pc from their own gas`,
+      })),
+    [hist],
+  );
+  const ic = result.intraComplex;
+  return (
+    <ZoomFigure
+      title="Young stars on their own cloud, per complex"
+      fileStem={`${fileStem}-intra-complex`}
+      width={560}
+      height={300}
+      domain={domain}
+      zoomY={false}
+      xLabel="young stars minus gas within the complex, across the arm, ahead + (pc)"
+      yLabel="complexes"
+      targets={targets}
+      testId="ordering-intra-histogram"
+      caption={`Positive: the young stars of a complex lie ahead of its own gas in the sense of rotation. On top: the median (${pc(ic.medianAcrossKpc, 1)} pc) with its 95 % interval; ${across.length} complexes.`}
+    >
+      {({ px, py }) => (
+        <>
+          <line x1={px(0)} x2={px(0)} y1={0} y2={1e4} stroke={PLOT_COLOURS.ink} strokeWidth={0.8} />
+          <path
+            d={stepPath(hist, px, py, false)}
+            fill={PLOT_COLOURS.accent}
+            fillOpacity={0.18}
+            stroke={PLOT_COLOURS.accent}
+            strokeWidth={1.6}
+          />
+          <MedianMark
+            median={ic.medianAcrossKpc === null ? null : ic.medianAcrossKpc * 1000}
+            ci={ic.ci95 ? [ic.ci95[0] * 1000, ic.ci95[1] * 1000] : null}
+            colour={PLOT_COLOURS.ink}
+            row={0}
+            px={px}
+            top={14}
+          />
+        </>
+      )}
+    </ZoomFigure>
   );
 }

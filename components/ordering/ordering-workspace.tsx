@@ -5,12 +5,36 @@ import { useMemo, useState } from 'react';
 import { ErrorNote } from '@/components/ui/panel';
 import { api } from '@/lib/api-client';
 import { ARM_MODEL_PRESETS } from '@/lib/astro/arms';
-import { TOOL_CURVES, TOOL_CURVE_PRESETS } from '@/lib/calculators';
+import { ROTATION_CURVE_PRESETS } from '@/lib/astro/rotation-curves';
+import { TOOL_CURVES } from '@/lib/calculators';
 import { AnalysesPanel, useAnalyses } from './analyses-panel';
 import { AnalysisView } from './analysis-view';
 import { SettingsPanel, projectKey } from './settings-panel';
 import { checkDraft, draftFromDefaults, readDefaults, type SettingsDraft } from './settings-model';
-import type { ArmPresets, OrderingDefaults } from './types';
+import type { ArmPresets, CurvePreset, OrderingDefaults } from './types';
+
+/** The curves an analysis accepts (the named published models), with their constants' 1σ. */
+function analysisCurves(
+  curves: ReadonlyArray<
+    Omit<CurvePreset, 'name' | 'theta0Kms'> & { name: string; theta0Kms: number | null }
+  >,
+) {
+  return curves.flatMap((c): CurvePreset[] =>
+    (TOOL_CURVES as readonly string[]).includes(c.name) && c.theta0Kms !== null
+      ? [
+          {
+            name: c.name as CurvePreset['name'],
+            label: c.label,
+            source: c.source,
+            R0Kpc: c.R0Kpc,
+            theta0Kms: c.theta0Kms,
+            R0ErrKpc: c.R0ErrKpc,
+            theta0ErrKms: c.theta0ErrKms,
+          },
+        ]
+      : [],
+  );
+}
 
 /**
  * The published arm models and rotation curves from the science modules, the same tables the
@@ -18,7 +42,7 @@ import type { ArmPresets, OrderingDefaults } from './types';
  */
 const MODULE_PRESETS: ArmPresets = {
   presets: Object.entries(ARM_MODEL_PRESETS).map(([key, p]) => ({ key, ...p })),
-  curves: TOOL_CURVE_PRESETS.map((c) => ({ ...c })),
+  curves: analysisCurves(ROTATION_CURVE_PRESETS),
 };
 
 function Workspace({
@@ -99,9 +123,7 @@ export function OrderingWorkspace({
   const presets = useMemo<ArmPresets>(() => {
     const p = presetsQuery.data ?? MODULE_PRESETS;
     // Only the named published curves can be sent to the analyses endpoint.
-    const curves = p.curves.filter(
-      (c) => (TOOL_CURVES as readonly string[]).includes(c.name) && typeof c.theta0Kms === 'number',
-    );
+    const curves = analysisCurves(p.curves);
     return { presets: p.presets, curves: curves.length ? curves : MODULE_PRESETS.curves };
   }, [presetsQuery.data]);
   if (project.error)

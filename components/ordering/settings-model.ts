@@ -7,7 +7,15 @@
 import { armPoints, type ArmSpec } from '@/lib/astro/arms';
 import type { RotationCurve } from '@/lib/astro/rotation-curves';
 import { toolCurve, type ToolCurveName } from '@/lib/calculators';
-import type { ArmPresets, ArmsChoice, CustomArmJson, OrderingDefaults } from './types';
+import { NEAR_FAR_RULES } from '@/lib/schemas/analyses';
+import type {
+  ArmPresets,
+  ArmsChoice,
+  CurvePreset,
+  CustomArmJson,
+  NearFarRule,
+  OrderingDefaults,
+} from './types';
 
 /** One custom arm row: name, R_ref (kpc), β_ref, pitch ψ, β_min and β_max (deg), as typed. */
 export interface ArmRowDraft {
@@ -23,7 +31,12 @@ export interface SettingsDraft {
   curveName: ToolCurveName;
   R0: string;
   theta0: string;
+  /** 1σ of R0 (kpc) and Θ0 (km/s) drawn in the distance Monte Carlo. */
+  R0Err: string;
+  theta0Err: string;
+  /** An assumed pattern speed (km/s/kpc); empty: none is assumed. */
   patternSpeed: string;
+  nearFar: NearFarRule;
   sigmaStreamKms: string;
   scaleHeightKpc: string;
   armWidthKpc: string;
@@ -33,11 +46,15 @@ export interface SettingsDraft {
   customArms: ArmRowDraft[];
 }
 
-/** Defaults for a project that saved none (SCIENCE.md §4–6: σ_stream 7 km/s, h 0.06 kpc). */
+/**
+ * Defaults for a project that saved none: σ_stream 7 km/s and a young-disc scale height of
+ * 0.06 kpc (common practice); no pattern speed is assumed, so one is only ever fitted.
+ */
 export const FALLBACK_DEFAULTS: OrderingDefaults = {
   curve: { name: 'reid-2014' },
   arms: { preset: 'reid-2014' },
-  patternSpeed: 25,
+  patternSpeed: null,
+  nearFar: 'probabilistic',
   armWidthKpc: 1.0,
   sigmaStreamKms: 7,
   scaleHeightKpc: 0.06,
@@ -82,21 +99,37 @@ export const NEW_ARM_ROW: ArmRowDraft = {
   betaMaxDeg: '60',
 };
 
-/** Reads `project.settings.ordering` (any JSON) over the fallback defaults, key by key. */
+/**
+ * Reads `project.settings.ordering` (any JSON) over the fallback defaults, key by key. A near/far
+ * rule that is not one of the schema's falls back to the default.
+ */
 export function readDefaults(stored: unknown): OrderingDefaults {
   if (!stored || typeof stored !== 'object') return FALLBACK_DEFAULTS;
-  return { ...FALLBACK_DEFAULTS, ...(stored as Partial<OrderingDefaults>) };
+  const d = { ...FALLBACK_DEFAULTS, ...(stored as Partial<OrderingDefaults>) };
+  if (!(NEAR_FAR_RULES as readonly string[]).includes(d.nearFar))
+    d.nearFar = FALLBACK_DEFAULTS.nearFar;
+  return d;
 }
 
-/** The form state for saved defaults; R0 and Θ0 default to the curve preset's values. */
+/** The published 1σ of a preset's R0 (kpc) and Θ0 (km/s) as form text; 0 where none is published. */
+export function presetErrors(c: CurvePreset): { R0Err: string; theta0Err: string } {
+  return { R0Err: text(c.R0ErrKpc ?? 0), theta0Err: text(c.theta0ErrKms ?? 0) };
+}
+
+/** The form state for saved defaults; R0, Θ0 and their 1σ default to the curve preset's values. */
 export function draftFromDefaults(d: OrderingDefaults, presets: ArmPresets): SettingsDraft {
   const curve = presets.curves.find((c) => c.name === d.curve.name) ?? presets.curves[0];
   const custom = 'custom' in d.arms ? d.arms.custom : null;
+  const published = presetErrors(curve);
   return {
     curveName: curve.name,
     R0: text(d.curve.R0 ?? curve.R0Kpc),
     theta0: text(d.curve.theta0 ?? roundKms(curve.theta0Kms)),
-    patternSpeed: text(d.patternSpeed),
+    R0Err: d.curve.R0Err === undefined ? published.R0Err : text(d.curve.R0Err),
+    theta0Err: d.curve.theta0Err === undefined ? published.theta0Err : text(d.curve.theta0Err),
+    patternSpeed:
+      d.patternSpeed === null || d.patternSpeed === undefined ? '' : text(d.patternSpeed),
+    nearFar: d.nearFar,
     sigmaStreamKms: text(d.sigmaStreamKms),
     scaleHeightKpc: text(d.scaleHeightKpc),
     armWidthKpc: text(d.armWidthKpc),
@@ -139,7 +172,9 @@ const rangeWords = (r: Range) =>
 const LIMITS = {
   R0: { lo: 0, hi: 20, loOpen: true },
   theta0: { lo: 0, hi: 400, loOpen: true },
-  patternSpeed: { lo: 0, hi: 200 },
+  R0Err: { lo: 0, hi: 2 },
+  theta0Err: { lo: 0, hi: 50 },
+  patternSpeed: { lo: 0, hi: 200, loOpen: true },
   sigmaStreamKms: { lo: 0, hi: 50 },
   scaleHeightKpc: { lo: 0, hi: 2, loOpen: true },
   armWidthKpc: { lo: 0, hi: 5, loOpen: true },
@@ -173,13 +208,25 @@ export function checkDraft(d: SettingsDraft, presets: ArmPresets): CheckedSettin
   const errors: Record<string, string> = {};
   const R0 = number(errors, 'R0', 'R0 (kpc)', d.R0, LIMITS.R0);
   const theta0 = number(errors, 'theta0', 'Θ0 (km/s)', d.theta0, LIMITS.theta0);
-  const patternSpeed = number(
+  const R0Err = number(errors, 'R0Err', 'R0 uncertainty (kpc)', d.R0Err, LIMITS.R0Err);
+  const theta0Err = number(
     errors,
-    'patternSpeed',
-    'Pattern speed (km/s/kpc)',
-    d.patternSpeed,
-    LIMITS.patternSpeed,
+    'theta0Err',
+    'Θ0 uncertainty (km/s)',
+    d.theta0Err,
+    LIMITS.theta0Err,
   );
+  // An empty field assumes no pattern speed; a number is an assumption the result labels so.
+  const patternSpeed =
+    d.patternSpeed.trim() === ''
+      ? null
+      : number(
+          errors,
+          'patternSpeed',
+          'Assumed pattern speed (km/s/kpc)',
+          d.patternSpeed,
+          LIMITS.patternSpeed,
+        );
   const sigmaStreamKms = number(
     errors,
     'sigmaStreamKms',
@@ -264,9 +311,10 @@ export function checkDraft(d: SettingsDraft, presets: ArmPresets): CheckedSettin
     arms: specs,
     curve,
     value: {
-      curve: { name: d.curveName, R0, theta0 },
+      curve: { name: d.curveName, R0, theta0, R0Err, theta0Err },
       arms,
       patternSpeed,
+      nearFar: d.nearFar,
       armWidthKpc,
       sigmaStreamKms,
       scaleHeightKpc,

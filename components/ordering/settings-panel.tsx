@@ -8,18 +8,26 @@ import { SelectField, TextField } from '@/components/ui/field';
 import { ErrorNote, Panel } from '@/components/ui/panel';
 import { api } from '@/lib/api-client';
 import { corotationRadiusKpc } from '@/lib/astro/pattern-speed';
-import type { ToolCurveName } from '@/lib/calculators';
+import { NEAR_FAR_RULES } from '@/lib/schemas/analyses';
 import { ArmsEditor } from './arms-editor';
 import { FaceOnMap } from './face-on-map';
-import { armSpecToRow, roundKms, type CheckedSettings, type SettingsDraft } from './settings-model';
-import type { ArmPresets } from './types';
+import {
+  armSpecToRow,
+  presetErrors,
+  roundKms,
+  type CheckedSettings,
+  type SettingsDraft,
+} from './settings-model';
+import type { ArmPresets, NearFarRule } from './types';
+import { NEAR_FAR_WORDS } from './words';
 
 /** Query key of the project (its settings hold the ordering defaults). */
 export const projectKey = (projectId: string) => ['project', projectId];
 
 /**
- * The ordering settings: rotation curve and constants, pattern speed, streaming dispersion,
- * scale height, arm width, which members give the velocity, and the arm model (a published
+ * The ordering settings: rotation curve, its constants and their uncertainties, an optional
+ * assumed pattern speed, the near/far rule, streaming dispersion, scale height, arm width, which
+ * members give the velocity, and the arm model (a published
  * preset or custom arms in a table), with a face-on preview that follows every edit. Editors
  * change them for the next analysis; the owner can also save them as the project's defaults.
  */
@@ -63,7 +71,7 @@ export function SettingsPanel({
   const armPreset = presets.presets.find((p) => p.key === draft.preset);
   const errors = checked.ok ? {} : checked.errors;
   const corotation = useMemo(() => {
-    const ps = Number(draft.patternSpeed);
+    const ps = draft.patternSpeed.trim() === '' ? NaN : Number(draft.patternSpeed);
     return checked.ok && ps > 0 ? corotationRadiusKpc(checked.curve, ps) : null;
   }, [checked, draft.patternSpeed]);
   const kinked = armPreset?.arms.some((a) => a.betaKinkDeg !== undefined) ?? false;
@@ -86,9 +94,10 @@ export function SettingsPanel({
                 const c = presets.curves.find((x) => x.name === e.target.value);
                 if (c)
                   edit({
-                    curveName: c.name as ToolCurveName,
+                    curveName: c.name,
                     R0: String(c.R0Kpc),
                     theta0: String(roundKms(c.theta0Kms)),
+                    ...presetErrors(c),
                   });
               }}
             >
@@ -99,7 +108,7 @@ export function SettingsPanel({
               ))}
             </SelectField>
             {curvePreset && <p className="text-xs text-ink-soft">Source: {curvePreset.source}</p>}
-            <div className="grid gap-3 sm:grid-cols-3">
+            <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
               <TextField
                 label="R0 (kpc)"
                 inputMode="decimal"
@@ -116,18 +125,31 @@ export function SettingsPanel({
                 onChange={(e) => edit({ theta0: e.target.value })}
               />
               <TextField
-                label="Pattern speed (km/s/kpc)"
-                hint={
-                  corotation !== null
-                    ? `corotation at R = ${fmt(corotation, 2)} kpc`
-                    : 'no corotation radius'
-                }
+                label="R0 uncertainty, 1σ (kpc)"
+                hint="drawn in the distance Monte Carlo"
                 inputMode="decimal"
-                value={draft.patternSpeed}
+                value={draft.R0Err}
                 disabled={readOnly}
-                onChange={(e) => edit({ patternSpeed: e.target.value })}
+                onChange={(e) => edit({ R0Err: e.target.value })}
+              />
+              <TextField
+                label="Θ0 uncertainty, 1σ (km/s)"
+                hint="drawn in the distance Monte Carlo"
+                inputMode="decimal"
+                value={draft.theta0Err}
+                disabled={readOnly}
+                onChange={(e) => edit({ theta0Err: e.target.value })}
               />
             </div>
+            <TextField
+              label="Assumed pattern speed (optional)"
+              hint={`km/s/kpc. An assumption, labelled so in the result; leave empty to assume none (Ω_p is then only fitted from the data).${corotation !== null ? ` Corotation at R = ${fmt(corotation, 2)} kpc.` : ''}`}
+              inputMode="decimal"
+              placeholder="none"
+              value={draft.patternSpeed}
+              disabled={readOnly}
+              onChange={(e) => edit({ patternSpeed: e.target.value })}
+            />
             {curvePreset && canEdit && (
               <Button
                 type="button"
@@ -137,10 +159,11 @@ export function SettingsPanel({
                   edit({
                     R0: String(curvePreset.R0Kpc),
                     theta0: String(roundKms(curvePreset.theta0Kms)),
+                    ...presetErrors(curvePreset),
                   })
                 }
               >
-                Use the preset’s R0 and Θ0
+                Use the preset’s R0, Θ0 and their uncertainties
               </Button>
             )}
           </fieldset>
@@ -149,6 +172,18 @@ export function SettingsPanel({
             <legend className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
               Distances and arms
             </legend>
+            <SelectField
+              label="Near/far rule"
+              value={draft.nearFar}
+              disabled={readOnly}
+              onChange={(e) => edit({ nearFar: e.target.value as NearFarRule })}
+            >
+              {NEAR_FAR_RULES.map((r) => (
+                <option key={r} value={r}>
+                  {NEAR_FAR_WORDS[r]}
+                </option>
+              ))}
+            </SelectField>
             <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
               <TextField
                 label="Streaming σ (km/s)"
@@ -160,7 +195,7 @@ export function SettingsPanel({
               />
               <TextField
                 label="Scale height (kpc)"
-                hint="near root beyond ~2.5 of these"
+                hint="latitude rule: near root beyond ~2.5 of these"
                 inputMode="decimal"
                 value={draft.scaleHeightKpc}
                 disabled={readOnly}
@@ -306,6 +341,7 @@ export function SettingsPanel({
                   : (curvePreset?.R0Kpc ?? presets.curves[0].R0Kpc)
             }
             corotationKpc={corotation}
+            corotationSource="assumed"
             size={460}
             testId="arm-preview"
           />

@@ -2,55 +2,44 @@
  * Shapes of the ordering-analysis JSON API as the Arms & ordering page reads them (the contract
  * of `/api/projects/{id}/analyses`, `/api/analyses/{id}` and `/api/projects/{id}/arm-presets`).
  * Distances and offsets in kpc, angles in degrees, velocities LSR km/s, times ISO 8601. Offsets
- * are signed: positive ahead of the arm ridge in the sense of Galactic rotation.
+ * are measured positive ahead of the arm ridge in the sense of Galactic rotation.
  */
+import type { z } from 'zod';
 import type { ArmSpec } from '@/lib/astro/arms';
 import type { ToolCurveName } from '@/lib/calculators';
 import type { OrderingResult } from '@/lib/ordering/types';
+import type { AnalysisParams, analysisSchema, customArmSchema } from '@/lib/schemas/analyses';
 
 export type AnalysisStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
 
 /** One arm as the API spells it in `arms.custom` (β in degrees, R_ref in kpc). */
-export interface CustomArmJson {
-  name: string;
-  Rref: number;
-  betaRefDeg: number;
-  pitchDeg: number;
-  betaMinDeg: number;
-  betaMaxDeg: number;
-}
+export type CustomArmJson = z.infer<typeof customArmSchema>;
 
-export type ArmsChoice = { preset: string } | { custom: CustomArmJson[] };
+/** The body of `POST /api/projects/{id}/analyses`, before the schema fills in its defaults. */
+export type AnalysisRequest = z.input<typeof analysisSchema>;
 
-export interface CurveChoice {
-  name: ToolCurveName;
-  R0?: number;
-  theta0?: number;
-}
+export type ArmsChoice = AnalysisParams['arms'];
+export type CurveChoice = AnalysisParams['curve'];
+export type NearFarRule = AnalysisParams['nearFar'];
 
-/** The project's ordering defaults as saved in `project.settings.ordering`. */
-export interface OrderingDefaults {
-  curve: CurveChoice;
-  arms: ArmsChoice;
-  patternSpeed: number;
-  armWidthKpc: number;
-  sigmaStreamKms: number;
-  scaleHeightKpc: number;
-  velocityFrom: 'gas' | 'all';
-}
+/**
+ * The project's ordering defaults as saved in `project.settings.ordering`: the analysis body
+ * without the link run, resamples and seed. `patternSpeed` null: none is assumed.
+ */
+export type OrderingDefaults = Pick<
+  AnalysisParams,
+  | 'curve'
+  | 'arms'
+  | 'nearFar'
+  | 'armWidthKpc'
+  | 'sigmaStreamKms'
+  | 'scaleHeightKpc'
+  | 'velocityFrom'
+> & { patternSpeed: number | null };
 
-/** The body of `POST /api/projects/{id}/analyses`, also kept as the analysis's `params`. */
-export interface AnalysisParams extends Partial<Omit<OrderingDefaults, 'curve' | 'arms'>> {
-  runId: string;
-  curve: CurveChoice;
-  arms: ArmsChoice;
-  patternSpeed: number;
-  resamples: number;
-  seed: number;
-}
-
-// The result shapes are the pure module's own: one definition for the job that writes them
-// and the page that reads them.
+// The request and result shapes are the shared modules' own: one definition for the job that
+// writes them and the page that reads them.
+export type { AnalysisParams };
 export type { Ci, ClassSummary, DistanceChoice, OrderingResult } from '@/lib/ordering/types';
 export type ResultComplex = OrderingResult['complexes'][number];
 export type ResultSource = OrderingResult['sources'][number];
@@ -71,9 +60,10 @@ export interface AnalysisListItem {
   createdAt: string;
   createdBy: Person | string | null;
   summary: {
-    gasToStarsMedianKpc: number | null;
-    pValue: number | null;
-    delayMedianMyr: number | null;
+    youngMinusGasKpc: number | null;
+    youngMinusGasCi95: [number, number] | null;
+    patternSpeedKmsKpc: number | null;
+    timescaleMyr: number | null;
   } | null;
 }
 
@@ -90,14 +80,19 @@ export interface Analysis {
   result: OrderingResult | null;
 }
 
-/** `GET /api/projects/{id}/arm-presets`. */
+/** A rotation-curve preset as a form offers it, with the published 1σ of its constants. */
+export interface CurvePreset {
+  name: ToolCurveName;
+  label: string;
+  source: string;
+  R0Kpc: number;
+  theta0Kms: number;
+  R0ErrKpc: number | null;
+  theta0ErrKms: number | null;
+}
+
+/** `GET /api/projects/{id}/arm-presets` (curves filtered to those the analysis accepts). */
 export interface ArmPresets {
   presets: { key: string; label: string; source: string; R0Kpc: number; arms: ArmSpec[] }[];
-  curves: {
-    name: ToolCurveName;
-    label: string;
-    source: string;
-    R0Kpc: number;
-    theta0Kms: number;
-  }[];
+  curves: CurvePreset[];
 }

@@ -1,11 +1,11 @@
 /**
  * The plain-words side of an ordering result: how a distance was chosen, why a complex was left
- * out, and the headline sentence. The headline claims an ordering only when the 95 % interval of
- * the median gas-to-young-star offset excludes zero.
+ * out, which near/far rule ran, how a pattern speed was obtained, and number formats shared by
+ * the tables. The headline sentences come written with the result and are shown as they are.
  */
 import { fmt } from '@/components/link-runs/format';
 import { EXCLUSION_WORDS } from '@/lib/ordering/exclusions';
-import type { AnalysisStatus, DistanceChoice, OrderingResult } from './types';
+import type { AnalysisStatus, Ci, DistanceChoice, NearFarRule, OrderingResult } from './types';
 
 export const CHOICE_WORDS: Record<DistanceChoice, string> = {
   near: 'near root',
@@ -53,40 +53,36 @@ export function fmtP(p: number | null | undefined): string {
   return p.toPrecision(2);
 }
 
-/**
- * The headline: what the data say about the order of gas and young stars across the arms. The
- * statistics are signed downstream (positive: young stars downstream of their gas — ahead in
- * rotation inside corotation, behind outside), so a positive interval is the density-wave order.
- */
-export function headline(r: OrderingResult): {
-  claim: 'downstream' | 'upstream' | 'none' | 'too-few';
-  text: string;
-} {
-  const g = r.gasToStars;
-  if (g.medianAcrossKpc === null || g.ci95 === null) {
-    return {
-      claim: 'too-few',
-      text: `Too few complexes have both gas and young-star members at a usable distance to measure an ordering (n = ${g.n}).`,
-    };
-  }
-  const [lo, hi] = g.ci95;
-  const d = sharedDecimals([g.medianAcrossKpc * 1000, lo * 1000, hi * 1000]);
-  const interval = `95 % interval ${pc(lo, d)} to ${pc(hi, d)} pc, n = ${g.n} complexes`;
-  const sense = 'ahead of it in the sense of rotation inside corotation, behind it outside';
-  if (lo > 0) {
-    return {
-      claim: 'downstream',
-      text: `Young stars lie ${pc(g.medianAcrossKpc, d)} pc ahead of their gas across the arms in the direction of the flow (${sense}; median, ${interval}): the gas is upstream of the young stars, as a density wave predicts.`,
-    };
-  }
-  if (hi < 0) {
-    return {
-      claim: 'upstream',
-      text: `Young stars lie ${pc(-g.medianAcrossKpc, d)} pc behind their gas across the arms against the direction of the flow (median, ${interval}): the reverse of the order a density wave predicts.`,
-    };
-  }
-  return {
-    claim: 'none',
-    text: `The data do not show an ordering of gas and young stars across the arms: the median offset along the flow is ${pc(g.medianAcrossKpc, d)} pc, and its ${interval} includes zero.`,
-  };
+/** The near/far rules of the distance draws, as the settings form and the result name them. */
+export const NEAR_FAR_WORDS: Record<NearFarRule, string> = {
+  probabilistic: 'probabilistic (each draw takes a root by its likelihood)',
+  near: 'near root always',
+  far: 'far root always',
+  latitude: 'latitude (near root when the far one is too high above the plane)',
+  independent: 'independent distances only',
+};
+
+/** How the pattern speed behind an interpretation was obtained; the label the page prints. */
+export function patternSpeedSourceWords(
+  source: OrderingResult['interpretation']['source'],
+): string {
+  if (source === 'fitted') return 'fitted';
+  if (source === 'assumed') return 'assumed';
+  return 'none';
 }
+
+/** An interval of values in kpc written in pc, sharing `decimals`. */
+export const pcCi = (c: Ci | null, decimals = 0) =>
+  c ? `${pc(c[0], decimals)} to ${pc(c[1], decimals)}` : '—';
+
+/** An interval written with `decimals` places. */
+export const ci = (c: Ci | null, decimals: number) =>
+  c ? `${fmt(c[0], decimals)} to ${fmt(c[1], decimals)}` : '—';
+
+/** Why a source was left out of the l–v offsets (the keys of the result's `lvMasked`). */
+export const LV_MASK_WORDS: Record<string, string> = {
+  noVelocity: 'without a velocity',
+  unreliableLongitude: 'at longitudes where velocity does not track distance',
+  noBranch: 'with no arm locus within the velocity window',
+  nearTangent: 'where the sight line grazes the arm (near a tangent)',
+};

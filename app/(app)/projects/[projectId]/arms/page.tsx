@@ -17,7 +17,7 @@ export default async function ArmsPage({
     <>
       <PageHeader
         title="Arms & ordering"
-        lead="Place the complexes of a link run in the Galaxy with kinematic distances, measure where gas and young stars sit across the spiral arms, and test whether the gas lies upstream."
+        lead="Place the complexes of a link run in the Galaxy with distances drawn as distributions, and measure where gas and young stars sit across the spiral arms: ahead of or behind the ridges in the sense of rotation, at the tangent points, and in the longitude–velocity plane."
       />
       <OrderingWorkspace
         projectId={projectId}

@@ -7,6 +7,7 @@
  */
 
 import { ROTATION_SENSE, azimuthDeg, fromGalactocentric, polarToXy } from './galactocentric';
+import { vLsrAtKms } from './kinematic-distance';
 import type { RotationCurve } from './rotation-curves';
 
 const DEG = Math.PI / 180;
@@ -392,7 +393,8 @@ export function offsetsFromArmsBulk(
 /**
  * The arm's locus in the longitude–velocity plane for circular rotation on `curve`, with the Sun
  * at (curve.R0Kpc, 0): for ridge points every stepDeg of β, Galactic longitude (deg, [0, 360)),
- * v_LSR (km/s) = R0 sin l (Θ(R)/R − Θ0/R0) at b = 0, heliocentric distance (kpc) and β (deg).
+ * standard-LSR v (km/s) of the curve's forward model {@link vLsrAtKms} at b = 0 (R0 sin l (Θ(R)/R − Θ0/R0)
+ * for a curve without a frame of its own), heliocentric distance (kpc) and β (deg).
  */
 export function armLocusLv(
   arm: ArmSpec,
@@ -402,16 +404,14 @@ export function armLocusLv(
   const pts = armPoints(arm, stepDeg);
   const n = pts.betaDeg.length;
   const R0 = curve.R0Kpc;
-  const omega0 = curve.theta0Kms / R0;
   const lDeg = new Float64Array(n);
   const vLsrKms = new Float64Array(n);
   const distKpc = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const h = fromGalactocentric(pts.xKpc[i], pts.yKpc[i], 0, R0);
-    const R = pts.RKpc[i];
     lDeg[i] = h.lDeg;
     distKpc[i] = h.distKpc;
-    vLsrKms[i] = R0 * Math.sin(h.lDeg * DEG) * (curve.thetaKms(R) / R - omega0);
+    vLsrKms[i] = vLsrAtKms(h.lDeg, 0, h.distKpc, curve);
   }
   return { lDeg, vLsrKms, distKpc, betaDeg: pts.betaDeg.slice() };
 }

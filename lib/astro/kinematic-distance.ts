@@ -1,10 +1,18 @@
 /**
- * Kinematic distances for circular Galactic rotation.
+ * Kinematic distances for circular Galactic rotation (docs/methods.md, "Kinematic distances").
  *
- * v_LSR = R0 sin l cos b (Θ(R)/R − Θ0/R0), Θ0 = Θ(R0) (SCIENCE.md §4; e.g. Roman-Duval et al.
- * 2009). The solver finds R from v_LSR (Θ/R falls monotonically with R for every supported
- * curve), then the in-plane distances d = R0 cos l ± √(R² − R0² sin² l), and divides by cos b
- * for line-of-sight distances. All distances returned are line-of-sight, in kpc.
+ * v_LSR = R0 sin l cos b (Θ(R)/R − Θ0/R0), with the curve's Θ0 (e.g. Roman-Duval et al. 2009).
+ * The solver finds R from v_LSR (Θ/R falls monotonically with R for every supported curve),
+ * then the in-plane distances d = R0 cos l ± √(R² − R0² sin² l), and divides by cos b for
+ * line-of-sight distances. All distances returned are line-of-sight, in kpc.
+ *
+ * Velocities come in the standard (kinematic) LSR. A curve fitted in its own frame (Reid et al.
+ * 2009, 2014, 2019) has them moved into it first: the standard solar motion is taken out and the
+ * curve's put in, and the sources' mean lag V_s adds to Θ(R) (Reid et al. 2009, appendix). The
+ * sources' mean inward motion U_s is not applied: its projection depends on where the source is
+ * on the sight line, so it cannot be moved into the velocity before inverting, and including it
+ * makes v(d) lose its symmetry about the tangent point; it is ≤ 3 km/s (2014) and 6 km/s (2019),
+ * inside the streaming uncertainty.
  *
  * Result shape: inside the solar circle (R < R0, only for cos l > 0) there are two roots, `nearKpc`
  * and `farKpc`. Outside it (R > R0) there is one root; it is the "+" branch of the formula, so it is
@@ -16,6 +24,7 @@
  */
 
 import type { RotationCurve } from './rotation-curves';
+import { KINEMATIC_LSR, solarMotionProjectionKms } from './velocity';
 import { makeRng, deriveSeed } from '../stats/rng';
 import { quantileSelectInPlace } from '../stats/summary';
 
@@ -25,8 +34,10 @@ const DEG = Math.PI / 180;
  * Flags on a kinematic distance:
  * - 'beyond-terminal': |v_LSR| exceeds the terminal velocity of the sight line; the source is
  *   placed at the tangent point.
- * - 'near-tangent': two roots, but v_LSR is within {@link NEAR_TANGENT_KMS} of the terminal
- *   velocity, i.e. within typical streaming motions, so near and far cannot be told apart.
+ * - 'near-tangent': two roots closer together than the velocity uncertainty σ_v can tell apart:
+ *   half their separation times the gradient |dv/dd| at the roots is below σ_v (each root's 1σ
+ *   distance interval reaches the tangent point). σ_v is the source's own velocity uncertainty,
+ *   {@link DEFAULT_VELOCITY_SIGMA_KMS} by default.
  * - 'unreliable-longitude': within {@link UNRELIABLE_LONGITUDE_DEG} of l = 0° or 180°, where
  *   v_LSR hardly changes with distance and non-circular motions dominate (common practice).
  * - 'outer-galaxy': R > R0; one root, reported as `farKpc`.
@@ -53,10 +64,26 @@ const UNRELIABLE = 4;
 const OUTER = 8;
 const NONE = 16;
 
-/** Velocity window (km/s) around the terminal velocity flagged 'near-tangent' (typical streaming, common practice). */
-export const NEAR_TANGENT_KMS = 7;
-/** Half-width (deg) of the longitude windows around l = 0° and 180° flagged 'unreliable-longitude' (common practice). */
-export const UNRELIABLE_LONGITUDE_DEG = 10;
+/** Velocity uncertainty (km/s) assumed for the near-tangent test when a source has none: typical streaming motions (common practice). */
+export const DEFAULT_VELOCITY_SIGMA_KMS = 7;
+
+/**
+ * Half-width (deg) of the zones around l = 0° and 180° where kinematic distances are unreliable,
+ * for the calculators and the analyses alike. 15°: the sight line then passes within
+ * R0 sin 15° ≈ 2.2 kpc of the Galactic centre, where the bar's non-circular motions dominate,
+ * and v_LSR changes by only a few km/s per kpc toward both l = 0° and 180° (common practice).
+ */
+export const UNRELIABLE_LONGITUDE_DEG = 15;
+
+/** True when l (deg, any range) lies within {@link UNRELIABLE_LONGITUDE_DEG} of 0° or 180°. */
+export function isUnreliableLongitude(lDeg: number): boolean {
+  const l = ((lDeg % 360) + 360) % 360;
+  return (
+    l < UNRELIABLE_LONGITUDE_DEG ||
+    l > 360 - UNRELIABLE_LONGITUDE_DEG ||
+    Math.abs(l - 180) < UNRELIABLE_LONGITUDE_DEG
+  );
+}
 
 /** Flags named by a bitmask from {@link kinematicDistancesBulk}. */
 export function flagsFromBits(bits: number): KinematicFlag[] {
@@ -76,8 +103,10 @@ const R_MIN_KPC = 0.01;
 const R_MAX_KPC = 1000;
 
 /**
- * LSR radial velocity (km/s) of a point at Galactic (l, b) in degrees and line-of-sight distance
- * distKpc, in circular rotation on the given curve (R0 and Θ0 from the curve).
+ * Standard-LSR radial velocity (km/s) of a point at Galactic (l, b) in degrees and line-of-sight
+ * distance distKpc, moving on the given curve (R0, Θ0 and, where the curve has one, its frame:
+ * the sources' mean lag V_s added to Θ and the curve's solar motion exchanged for the standard
+ * one). The forward model that {@link kinematicDistance} inverts.
  */
 export function vLsrAtKms(
   lDeg: number,
@@ -87,13 +116,21 @@ export function vLsrAtKms(
 ): number {
   const R0 = curve.R0Kpc;
   const cb = Math.cos(bDeg * DEG);
+  const cl = Math.cos(lDeg * DEG);
   const k = R0 * Math.sin(lDeg * DEG) * cb;
-  if (k === 0) return 0;
   const dPlane = distKpc * cb;
-  const R = Math.sqrt(
-    Math.max(0, R0 * R0 + dPlane * dPlane - 2 * R0 * dPlane * Math.cos(lDeg * DEG)),
+  const R = Math.sqrt(Math.max(0, R0 * R0 + dPlane * dPlane - 2 * R0 * dPlane * cl));
+  const circular = k === 0 || !(R > 0) ? 0 : k * (sourceOmega(curve)(R) - curve.theta0Kms / R0);
+  return circular - frameShiftKms(lDeg, bDeg, curve);
+}
+
+/** v_curve − v_standard-LSR (km/s) toward (l, b): the curve's solar motion in place of the standard one. */
+export function frameShiftKms(lDeg: number, bDeg: number, curve: RotationCurve): number {
+  if (!curve.frame) return 0;
+  return (
+    solarMotionProjectionKms(lDeg, bDeg, curve.frame.solarMotion) -
+    solarMotionProjectionKms(lDeg, bDeg, KINEMATIC_LSR)
   );
-  return k * (curve.thetaKms(R) / R - curve.theta0Kms / R0);
 }
 
 /** Solves Θ(R)/R = target for R; returns −1 below R_MIN_KPC and +Infinity above R_MAX_KPC. */
@@ -101,8 +138,23 @@ type SolveR = (omegaTarget: number) => number;
 
 type Solver = { omega: (RKpc: number) => number; solve: SolveR };
 
+/**
+ * Angular speed of the sources, (Θ(R) + V_s)/R: a mean lag V_s adds to the circular speed. Where
+ * Θ < 10 |V_s| (the inner ~0.2 kpc) the lag tapers in proportion to Θ, so that the angular speed
+ * still falls with R and the inversion stays single-valued.
+ */
+function sourceOmega(curve: RotationCurve): (RKpc: number) => number {
+  const vs = curve.frame?.sourceVKms ?? 0;
+  if (vs === 0) return (R) => curve.thetaKms(R) / R;
+  const full = 10 * Math.abs(vs);
+  return (R) => {
+    const theta = curve.thetaKms(R);
+    return (theta + vs * Math.min(1, theta / full)) / R;
+  };
+}
+
 function bisectionSolver(curve: RotationCurve): Solver {
-  const omega = (R: number) => curve.thetaKms(R) / R;
+  const omega = sourceOmega(curve);
   const wMin = omega(R_MIN_KPC);
   const wMax = omega(R_MAX_KPC);
   const solve: SolveR = (target) => {
@@ -132,7 +184,7 @@ const tableCache = new WeakMap<RotationCurve, Solver>();
 function tableSolver(curve: RotationCurve): Solver {
   const cached = tableCache.get(curve);
   if (cached) return cached;
-  const exact = (R: number) => curve.thetaKms(R) / R;
+  const exact = sourceOmega(curve);
   const lnMin = Math.log(R_MIN_KPC);
   const h = (Math.log(R_MAX_KPC) - lnMin) / (TABLE_SIZE - 1);
   const ext = new Float64Array(TABLE_SIZE + 4);
@@ -209,13 +261,16 @@ type Out = {
   flags: Uint16Array;
 };
 
-function isUnreliableLongitude(lDeg: number): boolean {
-  const l = ((lDeg % 360) + 360) % 360;
-  return (
-    l < UNRELIABLE_LONGITUDE_DEG ||
-    l > 360 - UNRELIABLE_LONGITUDE_DEG ||
-    Math.abs(l - 180) < UNRELIABLE_LONGITUDE_DEG
-  );
+/** The curve as the solver uses it: R0, the Sun's angular speed Θ0/R0, Θ/R inversion. */
+type Model = { R0: number; omega0: number; solver: Solver; curve: RotationCurve };
+
+function makeModel(curve: RotationCurve, solver: Solver): Model {
+  return {
+    R0: curve.R0Kpc,
+    omega0: curve.theta0Kms / curve.R0Kpc,
+    solver,
+    curve,
+  };
 }
 
 /** Everything about a sight line that does not depend on the velocity (reused across MC draws). */
@@ -224,11 +279,11 @@ type SightLine = {
   cl: number;
   cb: number;
   k: number;
+  shiftKms: number;
   baseFlags: number;
   tangentKpc: number;
   Rt: number;
   omegaT: number;
-  vTerminalKms: number;
 };
 
 function newSightLine(): SightLine {
@@ -237,50 +292,51 @@ function newSightLine(): SightLine {
     cl: 0,
     cb: 0,
     k: 0,
+    shiftKms: 0,
     baseFlags: 0,
     tangentKpc: NaN,
     Rt: NaN,
     omegaT: NaN,
-    vTerminalKms: NaN,
   };
 }
 
-function prepareSightLine(
-  lDeg: number,
-  bDeg: number,
-  R0: number,
-  omega0: number,
-  solver: Solver,
-  s: SightLine,
-): void {
+function prepareSightLine(lDeg: number, bDeg: number, m: Model, s: SightLine): void {
+  const R0 = m.R0;
   s.sl = Math.sin(lDeg * DEG);
   s.cl = Math.cos(lDeg * DEG);
   s.cb = Math.cos(bDeg * DEG);
   s.k = R0 * s.sl * s.cb;
+  s.shiftKms = frameShiftKms(lDeg, bDeg, m.curve);
   s.baseFlags = isUnreliableLongitude(lDeg) ? UNRELIABLE : 0;
   if (!(Math.abs(s.k) > 1e-12 * R0)) s.baseFlags |= NONE;
   s.tangentKpc = s.cl > 0 && s.cb > 0 ? (R0 * s.cl) / s.cb : NaN;
   if (s.cl > 0) {
     s.Rt = R0 * Math.abs(s.sl);
-    s.omegaT = solver.omega(s.Rt);
-    s.vTerminalKms = s.k * (s.omegaT - omega0);
+    s.omegaT = m.solver.omega(s.Rt);
   } else {
     s.Rt = NaN;
     s.omegaT = NaN;
-    s.vTerminalKms = NaN;
   }
 }
 
-/** Core of every entry point: one velocity on a prepared sight line, written into slot i. */
+/** True when the two roots at R cannot be told apart with velocity uncertainty sigmaKms (see 'near-tangent'). */
+function rootsUnresolved(s: SightLine, m: Model, R: number, sq: number, sigmaKms: number): boolean {
+  const e = 1e-5 * R;
+  const dOmega = (m.solver.omega(R + e) - m.solver.omega(R - e)) / (2 * e);
+  // half-separation sq/cb times |dv/dd| = |k ω'(R)| cb sq / R
+  return (Math.abs(s.k * dOmega) * sq * sq) / R < sigmaKms;
+}
+
+/** Core of every entry point: one standard-LSR velocity on a prepared sight line, written into slot i. */
 function solveOnSightLine(
   s: SightLine,
   vLsrKms: number,
-  R0: number,
-  omega0: number,
-  solver: Solver,
+  sigmaKms: number,
+  m: Model,
   out: Out,
   i: number,
 ): void {
+  const R0 = m.R0;
   let flags = s.baseFlags;
   out.RKpc[i] = NaN;
   out.nearKpc[i] = NaN;
@@ -290,20 +346,18 @@ function solveOnSightLine(
     out.flags[i] = flags | NONE;
     return;
   }
-  const target = omega0 + vLsrKms / s.k;
-  if (s.cl > 0) {
-    if (target > s.omegaT) {
-      out.RKpc[i] = s.Rt;
-      out.nearKpc[i] = s.tangentKpc;
-      out.farKpc[i] = s.tangentKpc;
-      out.flags[i] = flags | BEYOND;
-      return;
-    }
-    if (Math.abs(vLsrKms - s.vTerminalKms) < NEAR_TANGENT_KMS) flags |= NEAR_TANGENT;
+  const vKms = vLsrKms + s.shiftKms;
+  const target = m.omega0 + vKms / s.k;
+  if (s.cl > 0 && target > s.omegaT) {
+    out.RKpc[i] = s.Rt;
+    out.nearKpc[i] = s.tangentKpc;
+    out.farKpc[i] = s.tangentKpc;
+    out.flags[i] = flags | BEYOND;
+    return;
   }
-  const R = target > 0 ? solver.solve(target) : Infinity;
-  if (!(R > 0) || R === Infinity || (s.cl <= 0 && R < R0 * (1 - 1e-12))) {
-    out.flags[i] = (flags & ~NEAR_TANGENT) | NONE;
+  const R = circularRoot(s, m, target);
+  if (Number.isNaN(R)) {
+    out.flags[i] = flags | NONE;
     return;
   }
   out.RKpc[i] = R;
@@ -313,24 +367,17 @@ function solveOnSightLine(
     out.flags[i] = flags | OUTER;
     return;
   }
+  if (rootsUnresolved(s, m, R, sq, sigmaKms)) flags |= NEAR_TANGENT;
   out.nearKpc[i] = Math.max(0, R0 * s.cl - sq) / s.cb;
   out.farKpc[i] = (R0 * s.cl + sq) / s.cb;
   out.flags[i] = flags;
 }
 
-function solveOne(
-  lDeg: number,
-  bDeg: number,
-  vLsrKms: number,
-  R0: number,
-  omega0: number,
-  solver: Solver,
-  out: Out,
-  i: number,
-  s: SightLine,
-): void {
-  prepareSightLine(lDeg, bDeg, R0, omega0, solver, s);
-  solveOnSightLine(s, vLsrKms, R0, omega0, solver, out, i);
+/** Root R of the circular model for angular-speed target, or NaN where there is none on this sight line. */
+function circularRoot(s: SightLine, m: Model, target: number): number {
+  const R = target > 0 ? m.solver.solve(target) : Infinity;
+  if (!(R > 0) || R === Infinity || (s.cl <= 0 && R < m.R0 * (1 - 1e-12))) return NaN;
+  return R;
 }
 
 function nullable(x: number): number | null {
@@ -347,30 +394,34 @@ function makeOut(n: number): Out {
   };
 }
 
+function checkSigma(sigmaKms: number, where: string): number {
+  if (!(sigmaKms > 0) || !Number.isFinite(sigmaKms)) {
+    throw new RangeError(`${where}: velocity uncertainty ${sigmaKms} km/s must be positive`);
+  }
+  return sigmaKms;
+}
+
 /**
- * Kinematic distance of one source at Galactic (l, b) in degrees with LSR velocity vLsrKms
- * (km/s), for circular rotation on `curve`. Solves by plain bisection on the exact curve (the
- * bulk version uses a tabulated solver; the two agree to ~1e-10 kpc). See the module comment
- * for the result shape and {@link KinematicFlag} for the flags.
+ * Kinematic distance of one source at Galactic (l, b) in degrees with standard-LSR velocity
+ * vLsrKms (km/s), on `curve` (in its frame, if it has one). `vErrKms` is the source's 1σ
+ * velocity uncertainty (km/s, measurement and streaming together) for the 'near-tangent' test,
+ * {@link DEFAULT_VELOCITY_SIGMA_KMS} by default. Solves by plain bisection on the exact curve
+ * (the bulk version uses a tabulated solver; the two agree to ~1e-10 kpc). See the module
+ * comment for the result shape and {@link KinematicFlag} for the flags.
  */
 export function kinematicDistance(
   lDeg: number,
   bDeg: number,
   vLsrKms: number,
   curve: RotationCurve,
+  vErrKms: number = DEFAULT_VELOCITY_SIGMA_KMS,
 ): KinematicDistance {
+  const sigma = checkSigma(vErrKms, 'kinematicDistance');
   const out = makeOut(1);
-  solveOne(
-    lDeg,
-    bDeg,
-    vLsrKms,
-    curve.R0Kpc,
-    curve.theta0Kms / curve.R0Kpc,
-    bisectionSolver(curve),
-    out,
-    0,
-    newSightLine(),
-  );
+  const m = makeModel(curve, bisectionSolver(curve));
+  const s = newSightLine();
+  prepareSightLine(lDeg, bDeg, m, s);
+  solveOnSightLine(s, vLsrKms, sigma, m, out, 0);
   return {
     RKpc: nullable(out.RKpc[0]),
     nearKpc: nullable(out.nearKpc[0]),
@@ -381,8 +432,9 @@ export function kinematicDistance(
 }
 
 /**
- * Kinematic distances for many sources at once: l, b (deg) and v_LSR (km/s) columns in; R, near,
- * far and tangent columns (kpc, NaN where none exists) and a flag bitmask
+ * Kinematic distances for many sources at once: l, b (deg) and standard-LSR v (km/s) columns in,
+ * with an optional 1σ velocity uncertainty (km/s; one value or a column) for the 'near-tangent'
+ * test; R, near, far and tangent columns (kpc, NaN where none exists) and a flag bitmask
  * ({@link KINEMATIC_FLAG_BITS}) out. Same rules as {@link kinematicDistance}, with a tabulated
  * Θ/R inversion (about 1e6 sources per second or better).
  */
@@ -391,18 +443,30 @@ export function kinematicDistancesBulk(
   bDeg: Float64Array,
   vLsrKms: Float64Array,
   curve: RotationCurve,
+  vErrKms: Float64Array | number = DEFAULT_VELOCITY_SIGMA_KMS,
 ): Out {
   const n = lDeg.length;
-  if (bDeg.length !== n || vLsrKms.length !== n) {
-    throw new RangeError(`column lengths differ: l ${n}, b ${bDeg.length}, v ${vLsrKms.length}`);
+  if (
+    bDeg.length !== n ||
+    vLsrKms.length !== n ||
+    (typeof vErrKms !== 'number' && vErrKms.length !== n)
+  ) {
+    throw new RangeError(
+      `column lengths differ: l ${n}, b ${bDeg.length}, v ${vLsrKms.length}${typeof vErrKms === 'number' ? '' : `, vErr ${vErrKms.length}`}`,
+    );
   }
+  const one = typeof vErrKms === 'number' ? checkSigma(vErrKms, 'kinematicDistancesBulk') : 0;
   const out = makeOut(n);
-  const solver = tableSolver(curve);
-  const R0 = curve.R0Kpc;
-  const omega0 = curve.theta0Kms / R0;
+  const m = makeModel(curve, tableSolver(curve));
   const sight = newSightLine();
-  for (let i = 0; i < n; i++)
-    solveOne(lDeg[i], bDeg[i], vLsrKms[i], R0, omega0, solver, out, i, sight);
+  for (let i = 0; i < n; i++) {
+    const sigma =
+      typeof vErrKms === 'number'
+        ? one
+        : checkSigma(vErrKms[i], `kinematicDistancesBulk, source ${i}`);
+    prepareSightLine(lDeg[i], bDeg[i], m, sight);
+    solveOnSightLine(sight, vLsrKms[i], sigma, m, out, i);
+  }
   return out;
 }
 
@@ -453,15 +517,14 @@ function runMonteCarlo(
   withR: boolean,
 ): MonteCarloDistance {
   const rng = makeRng(seed);
-  const R0 = curve.R0Kpc;
-  const omega0 = curve.theta0Kms / R0;
+  const m = makeModel(curve, solver);
   const { one, sight } = scratch;
-  prepareSightLine(lDeg, bDeg, R0, omega0, solver, sight);
+  prepareSightLine(lDeg, bDeg, m, sight);
   let nNear = 0;
   let nFar = 0;
   let nR = 0;
   for (let j = 0; j < draws; j++) {
-    solveOnSightLine(sight, vLsrKms + sigmaKms * rng.normal(), R0, omega0, solver, one, 0);
+    solveOnSightLine(sight, vLsrKms + sigmaKms * rng.normal(), sigmaKms, m, one, 0);
     const near = one.nearKpc[0];
     const far = one.farKpc[0];
     const R = one.RKpc[0];
@@ -499,7 +562,7 @@ function makeScratch(draws: number): McScratch {
 }
 
 /**
- * Monte Carlo kinematic distance (SCIENCE.md §4): draws v ~ N(v_LSR, σ_meas² + σ_stream²),
+ * Monte Carlo kinematic distance (docs/methods.md, "Uncertainties"): draws v ~ N(v_LSR, σ_meas² + σ_stream²),
  * solves each draw, and reports the median and 16th–84th percentile interval of the near root,
  * the far root (which includes single outer-Galaxy roots) and R over the draws where each
  * exists, with the fraction of such draws. Draws beyond the terminal velocity count at the
@@ -626,7 +689,7 @@ export type AmbiguityResolution = {
 export const DEFAULT_SCALE_HEIGHT_KPC = 0.06;
 
 /**
- * Chooses between the near and far kinematic roots (SCIENCE.md §4, common practice):
+ * Chooses between the near and far kinematic roots (docs/methods.md, "Near or far"; common practice):
  * 1. no root → 'unresolved'; one root (outer Galaxy) → 'single'; equal roots → 'tangent';
  * 2. with an independent distance (parallax or photometric, kpc) → the root closer to it, unless
  *    its error bar does not separate them (the rejected root is not farther from it by more than

@@ -169,7 +169,7 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
   'reid-2014': {
     label: 'Universal rotation curve, Reid et al. (2014)',
     source:
-      'Persic, Salucci & Stel (1996) universal rotation curve, eqs. 8–11, with model A5 of Reid et al. (2014), ApJ 783, 130, Table 4: a1 = 241 km/s, a2 = 0.90, a3 = 1.46, R0 = 8.34 ± 0.16 kpc, Θ0 = 240 ± 8 km/s, solar motion (U⊙, V⊙, W⊙) = (10.7, 15.6, 8.9) km/s and mean source peculiar motion (U_s, V_s) = (2.9, −1.6) km/s. Standard-LSR velocities are moved into this frame before the distance is solved. R0, Θ0 and their uncertainties are as in the abstract; the solar and source motions agree with a published copy of model A5 except V_s, given there as −1.5 km/s: V_s and the table number were not checked against the original here',
+      'Persic, Salucci & Stel (1996) universal rotation curve, eqs. 8–11, with model A5 of Reid et al. (2014), ApJ 783, 130, Table 4: a1 = 241 km/s, a2 = 0.90, a3 = 1.46, R0 = 8.34 ± 0.16 kpc, Θ0 = 240 ± 8 km/s, solar motion (U⊙, V⊙, W⊙) = (10.7, 15.6, 8.9) km/s and mean source peculiar motion (U_s, V_s) = (2.9, −1.6) km/s. Standard-LSR velocities are moved into this frame (solar motion and V_s; U_s is not applied, as its projection depends on the distance) before the distance is solved. R0, Θ0 and their uncertainties are as in the abstract; the solar and source motions agree with a published copy of model A5 except V_s, given there as −1.5 km/s: V_s and the table number were not checked against the original here',
     R0Kpc: 8.34,
     R0ErrKpc: 0.16,
     theta0ErrKms: 8,
@@ -190,7 +190,7 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
   'reid-2019': {
     label: 'Universal rotation curve, Reid et al. (2019)',
     source:
-      'Persic, Salucci & Stel (1996) form with the amplitude set by λ, as used by Reid et al. (2019), ApJ 885, 131, with the A5 model refit for kinematic distances (Wenger et al.): a2 = 0.977, a3 = 1.623, R0 = 8.166 kpc; Reid et al. (2019) give R0 = 8.15 ± 0.15 kpc, Θ0 = 236 ± 7 km/s (abstract). Solar motion (U⊙, V⊙, W⊙) = (10.6, 10.7, 7.6) km/s and mean source peculiar motion (U_s, V_s) = (6.0, −4.3) km/s of model A5 (Table 3); standard-LSR velocities are moved into this frame before the distance is solved. The solar and source motions were not checked against the original table here, and the refit at R0 = 8.166 kpc has its own, slightly different, motions',
+      'Persic, Salucci & Stel (1996) form with the amplitude set by λ, as used by Reid et al. (2019), ApJ 885, 131, with the A5 model refit for kinematic distances (Wenger et al.): a2 = 0.977, a3 = 1.623, R0 = 8.166 kpc; Reid et al. (2019) give R0 = 8.15 ± 0.15 kpc, Θ0 = 236 ± 7 km/s (abstract). Solar motion (U⊙, V⊙, W⊙) = (10.6, 10.7, 7.6) km/s and mean source peculiar motion (U_s, V_s) = (6.0, −4.3) km/s of model A5 (Table 3); standard-LSR velocities are moved into this frame (solar motion and V_s; U_s is not applied) before the distance is solved. The solar and source motions were not checked against the original table here, and the refit at R0 = 8.166 kpc has its own, slightly different, motions',
     R0Kpc: 8.166,
     R0ErrKpc: 0.15,
     theta0ErrKms: 7,

@@ -18,22 +18,11 @@ export const EXCLUSION_REASONS = [
 /** One exclusion reason. */
 export type ExclusionReason = (typeof EXCLUSION_REASONS)[number];
 
-/**
- * Half-width (deg) of the windows around l = 0° and l = 180° where kinematic distances are
- * excluded. The product brief asks for about 15° (common practice); this is wider than the 10°
- * window `lib/astro/kinematic-distance` flags, so both the flag and this exclusion are reported.
- */
-export const UNRELIABLE_LONGITUDE_EXCLUSION_DEG = 15;
+import { UNRELIABLE_LONGITUDE_DEG, isUnreliableLongitude } from '@/lib/astro/kinematic-distance';
 
-/** True when l (deg, any range) lies within {@link UNRELIABLE_LONGITUDE_EXCLUSION_DEG} of 0° or 180°. */
-export function isUnreliableLongitude(lDeg: number): boolean {
-  const l = ((lDeg % 360) + 360) % 360;
-  const fromZero = Math.min(l, 360 - l);
-  return (
-    fromZero < UNRELIABLE_LONGITUDE_EXCLUSION_DEG ||
-    Math.abs(l - 180) < UNRELIABLE_LONGITUDE_EXCLUSION_DEG
-  );
-}
+/** Half-width (deg) of the windows around l = 0° and 180° excluded: the one rule of `lib/astro/kinematic-distance`. */
+export const UNRELIABLE_LONGITUDE_EXCLUSION_DEG = UNRELIABLE_LONGITUDE_DEG;
+export { isUnreliableLongitude };
 
 /** Plain words for each reason, used in warnings. */
 export const EXCLUSION_WORDS: Readonly<Record<ExclusionReason, string>> = {

@@ -3,6 +3,8 @@ import fc from 'fast-check';
 import {
   KINEMATIC_FLAG_BITS,
   flagsFromBits,
+  frameShiftKms,
+  isUnreliableLongitude,
   kinematicDistance,
   kinematicDistancesBulk,
   monteCarloDistance,
@@ -59,7 +61,11 @@ describe('flat rotation curve', () => {
     expect(kd.nearKpc).toBe(kd.tangentKpc);
     expect(kd.farKpc).toBe(kd.tangentKpc);
     expect(kd.RKpc).toBeCloseTo(4.25, 12);
-    expect(kinematicDistance(30, 0, 105, flat).flags).toContain('near-tangent');
+    // exact geometry: at v = 107 the roots' half-separation times |dv/dd| is 5.9 km/s < σ_v = 7
+    expect(kinematicDistance(30, 0, 107, flat).flags).toContain('near-tangent');
+    // … and 9.7 km/s at v = 105: resolved with σ_v = 7, not with σ_v = 12
+    expect(kinematicDistance(30, 0, 105, flat).flags).not.toContain('near-tangent');
+    expect(kinematicDistance(30, 0, 105, flat, 12).flags).toContain('near-tangent');
   });
 
   it('reports one root, as far, outside the solar circle', () => {
@@ -295,5 +301,88 @@ describe('near/far ambiguity', () => {
     expect(() => resolveAmbiguity({ nearKpc: 3, farKpc: 11, bDeg: 0, scaleHeightKpc: 0 })).toThrow(
       'scaleHeightKpc',
     );
+  });
+});
+
+describe('conventions of the published curves', () => {
+  it('Brand & Blitz (1993) with Θ0 = 220 km/s in the v_LSR formula', () => {
+    // independent hand computation from the Brand & Blitz (1993) formula, Θ0 = 220 in v_LSR,
+    // by scanning v(d) along the sight line in 1 pc steps and bisecting (no published worked
+    // example found here)
+    const bb = makeRotationCurve('brand-blitz-1993');
+    const a = kinematicDistance(60, 0, 10, bb);
+    expect(a.nearKpc).toBeCloseTo(0.682, 3);
+    expect(a.farKpc).toBeCloseTo(7.818, 3);
+    const b = kinematicDistance(30, 0, 80, bb);
+    expect(b.nearKpc).toBeCloseTo(4.9464, 3);
+    expect(b.farKpc).toBeCloseTo(9.7761, 3);
+    const c = kinematicDistance(135, 0, -40, bb);
+    expect(c.nearKpc).toBeNull();
+    expect(c.farKpc).toBeCloseTo(4.0861, 3);
+  });
+
+  it('moves standard-LSR velocities into the Reid et al. (2014) frame', () => {
+    const r14 = makeRotationCurve('reid-2014');
+    // hand computation from Reid et al. (2014) model A5 and the standard solar motion:
+    // l = 30°, b = 0: (10.7 − 10.27) cos 30° + (15.6 − 15.32) sin 30° = 0.51239 km/s
+    expect(frameShiftKms(30, 0, r14)).toBeCloseTo(0.51239, 5);
+    // b = 90°: W only, 8.9 − 7.74 = 1.16 km/s
+    expect(frameShiftKms(0, 90, r14)).toBeCloseTo(1.16, 10);
+    // curves without a frame: no shift
+    expect(frameShiftKms(30, 0, makeRotationCurve('flat'))).toBe(0);
+  });
+
+  it('inverts the frame model that an independent vector computation gives', () => {
+    // independent oracle: 3-D velocities. Source moves at Θ(R) + V_s along its rotation
+    // direction; the Sun moves at Θ0 plus the curve's solar motion; the observed heliocentric
+    // velocity is converted to the standard LSR with the standard solar motion (common practice)
+    const curve = makeRotationCurve('reid-2014');
+    const R0 = curve.R0Kpc;
+    const f = curve.frame!;
+    const D2 = Math.PI / 180;
+    for (const [l, b, d] of [
+      [30, 0, 2],
+      [30, 0.5, 11],
+      [120, -1, 5],
+      [300, 0.3, 3],
+    ]) {
+      const n = [
+        Math.cos(b * D2) * Math.cos(l * D2),
+        Math.cos(b * D2) * Math.sin(l * D2),
+        Math.sin(b * D2),
+      ];
+      // x toward the Galactic centre from the Sun, y toward l = 90°, z north; centre at (R0, 0, 0)
+      const p = [d * n[0] - R0, d * n[1]]; // source relative to the centre
+      const R = Math.hypot(p[0], p[1]);
+      const speed = curve.thetaKms(R) + f.sourceVKms;
+      // rotation at the Sun points to +y (toward l = 90°); direction at p is perpendicular to p
+      const vSrc = [(p[1] / R) * speed, (-p[0] / R) * speed];
+      const vSun = [f.solarMotion.uKms, curve.theta0Kms + f.solarMotion.vKms, f.solarMotion.wKms];
+      const vHelio = (vSrc[0] - vSun[0]) * n[0] + (vSrc[1] - vSun[1]) * n[1] - vSun[2] * n[2];
+      const std = 10.27 * n[0] + 15.32 * n[1] + 7.74 * n[2]; // standard solar motion
+      const vStd = vHelio + std;
+      expect(vLsrAtKms(l, b, d, curve)).toBeCloseTo(vStd, 9);
+      const kd = kinematicDistance(l, b, vStd, curve);
+      const roots = [kd.nearKpc, kd.farKpc].filter((x): x is number => x !== null);
+      expect(Math.min(...roots.map((x) => Math.abs(x - d)))).toBeLessThan(1e-6);
+    }
+  });
+
+  it('scales the near-tangent window with the velocity uncertainty', () => {
+    const flat = makeRotationCurve('flat');
+    // exact geometry, flat curve: at l = 80° the terminal velocity is 220 (1 − sin 80°) = 3.34 km/s;
+    // v = 0 puts the near root at the Sun (d = 0) and the far root at 2 R0 cos l = 2.95 kpc
+    expect(kinematicDistance(80, 0, 0.5, flat, 1).flags).not.toContain('near-tangent');
+    expect(kinematicDistance(80, 0, 0.5, flat).flags).toContain('near-tangent');
+    expect(() => kinematicDistance(80, 0, 0.5, flat, 0)).toThrow('velocity uncertainty 0');
+  });
+
+  it('shares one rule for the unreliable longitudes', () => {
+    // common practice: ±15° around l = 0° and 180°
+    expect(isUnreliableLongitude(14.9)).toBe(true);
+    expect(isUnreliableLongitude(15.1)).toBe(false);
+    expect(isUnreliableLongitude(-14)).toBe(true);
+    expect(isUnreliableLongitude(194)).toBe(true);
+    expect(isUnreliableLongitude(196)).toBe(false);
   });
 });

@@ -14,8 +14,10 @@ import {
   parseRaDeg,
 } from '@/lib/astro/coordinates';
 import {
+  DEFAULT_VELOCITY_SIGMA_KMS,
   flagsFromBits,
   kinematicDistancesBulk,
+  UNRELIABLE_LONGITUDE_DEG,
   type KinematicFlag,
 } from '@/lib/astro/kinematic-distance';
 import {
@@ -52,10 +54,8 @@ export type ToolCurvePreset = (typeof TOOL_CURVE_PRESETS)[number];
 export const KINEMATIC_FLAG_TEXT: Readonly<Record<KinematicFlag, string>> = Object.freeze({
   'beyond-terminal':
     'The velocity exceeds the terminal velocity of this sight line; the source is placed at the tangent point.',
-  'near-tangent':
-    'The velocity lies within 7 km/s of the terminal velocity (typical streaming), so near and far cannot be told apart.',
-  'unreliable-longitude':
-    'Within 10° of l = 0° or 180°: the velocity hardly changes with distance here and non-circular motions dominate.',
+  'near-tangent': `Near and far lie so close to the tangent point that a velocity error of ${DEFAULT_VELOCITY_SIGMA_KMS} km/s (typical streaming) cannot tell them apart.`,
+  'unreliable-longitude': `Within ${UNRELIABLE_LONGITUDE_DEG}° of l = 0° or 180°: the velocity hardly changes with distance here and non-circular motions dominate.`,
   'outer-galaxy':
     'Outside the solar circle (R > R0): there is a single root, given as the far distance.',
   'no-solution':
@@ -179,20 +179,14 @@ export type KinematicDistanceRequest = z.infer<typeof kinematicDistanceRequestSc
 
 /**
  * The rotation curve of a calculator request. `R0Kpc` (kpc) replaces the model's Sun–centre
- * distance; `theta0Kms` (km/s) is always the circular speed at the Sun, Θ(R0), for every model
- * (for Brand & Blitz 1993 the formula's own Θ0 is rescaled so that Θ(R0) = Θ0 (a1 + a3) equals
+ * distance; `theta0Kms` (km/s) replaces the Θ0 of the v_LSR formula (the model's own Θ0 for the
+ * flat, Brand & Blitz and Clemens curves; Θ(R0) of the universal curves, which are rescaled to
  * it), so that the preset value shown in a form reproduces the published curve. Throws a 400 for
  * constants the model rejects.
  */
 export function toolCurve(name: ToolCurveName, R0Kpc?: number, theta0Kms?: number): RotationCurve {
   try {
-    const base = makeRotationCurve(name, { R0Kpc });
-    if (theta0Kms === undefined) return base;
-    const own = name === 'flat' || name === 'brand-blitz-1993';
-    return makeRotationCurve(name, {
-      R0Kpc,
-      theta0Kms: own ? base.params.theta0Kms * (theta0Kms / base.theta0Kms) : theta0Kms,
-    });
+    return makeRotationCurve(name, { R0Kpc, theta0Kms });
   } catch (e) {
     if (e instanceof RangeError) throw new HttpError(400, 'invalid_curve', e.message);
     throw e;
@@ -242,7 +236,7 @@ function readSource(s: unknown): [number, number, number] {
 const nullable = (x: number): number | null => (Number.isNaN(x) ? null : x);
 
 /**
- * Kinematic distances (SCIENCE.md §4) of a checked request: sources at Galactic l, b (deg) with
+ * Kinematic distances (docs/methods.md, "Kinematic distances") of a checked request: sources at Galactic l, b (deg) with
  * v_LSR (km/s), on the chosen curve with optional R0 (kpc) and Θ(R0) (km/s). Results follow the
  * rules of `kinematicDistancesBulk` (line-of-sight kpc; an outer-Galaxy root is `far`). Throws a
  * 413 beyond {@link MAX_TOOL_POINTS} sources and a 400 naming the first bad source's index.

@@ -1,48 +1,70 @@
 /**
- * runOrderingAnalysis: distances, placement against the arms and the ordering statistics of a
- * set of complexes (SCIENCE.md §4–6), as one pure function. The steps live in their own modules;
- * this one wires them together, decides which complexes are used, and shapes the result.
+ * runOrderingAnalysis: the ordering of gas and young stars across spiral arms (docs/methods.md,
+ * "Ordering across the arms"), as one pure function. Every offset is measured in the sense of
+ * Galactic rotation (positive ahead of the ridge); upstream and downstream appear only in the
+ * interpretation, from the fitted pattern speed or a stated one. The steps live in their own
+ * modules; this one wires them together, decides which complexes are used and shapes the result.
  */
-import { angularSpeedKmsKpc, corotationRadiusKpc } from '@/lib/astro/pattern-speed';
+import {
+  KINEMATIC_FLAG_BITS,
+  flagsFromBits,
+  kinematicDistancesBulk,
+} from '@/lib/astro/kinematic-distance';
+import { ksTwoSample } from '@/lib/stats/ks';
 import { deriveSeed } from '@/lib/stats/rng';
 import { median } from '@/lib/stats/summary';
-import { classSummaries, type ClassInputs } from './class-offsets';
+import { classPlan, memberCounts, planGroups, summarisePlan } from './class-offsets';
 import { complexInputs, VELOCITY_SOURCE } from './complex-inputs';
 import { conventionsText } from './conventions';
-import { delaySummary } from './delay';
-import { decideDistances, kinematicColumns, type DistanceDecision } from './distance';
+import { drawDistances } from './distance-draws';
+import { drawQuantiles, offsetsOfDraws } from './draw-offsets';
 import { countReasons, type ExclusionReason } from './exclusions';
-import { flowSigns } from './flow-sign';
 import { gasToStarsColumns } from './gas-to-stars';
+import { headlineOf, interpretationOf } from './headline';
+import { intraComplexSummary } from './intra-complex';
+import { lvOffsets } from './lv-offsets';
 import { flattenMembers, TRACER_KINDS } from './members';
-import { centroidOffsetKs, gasToStarsSummary, signedGasToStars } from './ordering-test';
-import {
-  offsetsFromAssignedArms,
-  placeComplexes,
-  placePoints,
-  type ComplexPlacement,
-} from './placement';
-import { radialBins } from './radial-bins';
+import { nestedReplicates, type DrawMatrices } from './nested-bootstrap';
+import { fitPatternSpeed } from './pattern-fit';
+import { placeComplexes, placePoints } from './placement';
+import { radialPlan, radialSummaries } from './radial-phase';
 import { validateOverrides, validateSettings } from './settings';
-import type { ComplexRow, OrderingComplex, OrderingResult, OrderingSettings } from './types';
+import { tangentOffsets } from './tangents';
+import type {
+  ComplexRow,
+  DistanceChoice,
+  OrderingComplex,
+  OrderingResult,
+  OrderingSettings,
+  PatternFitSummary,
+} from './types';
 import { warningsFor } from './warnings';
 
 /** Seed tags: each statistic draws from its own stream derived from the settings' seed. */
-const SEED = {
-  classes: 100,
-  gasToStars: 200,
-  signFlip: 201,
-  delay: 202,
-  perArm: 1000,
-  radial: 5000,
-} as const;
+const SEED = { draws: 10, nested: 20, intra: 30, intraTest: 31, tangents: 40, lv: 50 } as const;
+/** A complex counts for its arm when at least this share of its draws falls on it. */
+export const MIN_ON_ARM_SHARE = 0.5;
+/** Width (kpc) of the rings of the pattern-speed fit. */
+export const RING_WIDTH_KPC = 1;
+/** Tangent-point settings (docs/methods.md, "Tangent points"). */
+export const TANGENT_DEFAULTS = { windowDeg: 6, kernelDeg: 0.3, maxAbsBDeg: 1, minSources: 10 };
 
 function nullable(x: number): number | null {
-  return x === x ? x : null;
+  return Number.isFinite(x) ? x : null;
 }
 
-function offArm(p: ComplexPlacement, c: number, armWidthKpc: number): boolean {
-  return !p.withinRange[c] || !(Math.abs(p.perpOffsetKpc[c]) <= armWidthKpc);
+function choiceOf(
+  method: string,
+  pNear: number,
+  tangentShare: number,
+  excluded: boolean,
+): DistanceChoice {
+  if (method === 'override') return 'override';
+  if (method === 'independent') return 'independent';
+  if (method === 'none' || excluded) return 'unresolved';
+  if (tangentShare > 0.5) return 'tangent';
+  if (!(pNear === pNear)) return 'single';
+  return pNear >= 0.5 ? 'near' : 'far';
 }
 
 /**
@@ -60,37 +82,147 @@ export function runOrderingAnalysis(
   validateOverrides(complexes);
   const cols = flattenMembers(complexes);
   const n = complexes.length;
-  const { curve, arms, patternSpeedKmsKpc: omegaP, resamples, seed } = settings;
+  const { curve, arms, resamples, seed, mcDraws: D } = settings;
   const R0 = curve.R0Kpc;
   progress(0.02);
 
   const inputs = complexInputs(cols, n, settings.velocityFrom);
-  const kin = kinematicColumns(inputs, settings, (done) =>
-    progress(0.02 + (0.5 * done) / Math.max(1, n)),
+  const sigmaKms = Float64Array.from(inputs.sigmaMeasKms, (s) =>
+    Math.sqrt(s * s + settings.sigmaStreamKms ** 2),
   );
-  const decisions: DistanceDecision[] = decideDistances(
-    complexes,
+  const nominal = kinematicDistancesBulk(inputs.lDeg, inputs.bDeg, inputs.vLsrKms, curve, sigmaKms);
+  const draws = drawDistances(
     inputs,
-    kin,
-    settings.scaleHeightKpc,
+    complexes.map((c) => c.distanceOverride?.distKpc ?? null),
+    {
+      curve,
+      R0ErrKpc: settings.R0ErrKpc,
+      theta0ErrKms: settings.theta0ErrKms,
+      sigmaStreamKms: settings.sigmaStreamKms,
+      scaleHeightKpc: settings.scaleHeightKpc,
+      nearFar: settings.nearFar,
+      draws: D,
+      seed: deriveSeed(seed, SEED.draws),
+    },
+    (j) => progress(0.02 + (0.4 * j) / D),
   );
-  const distKpc = Float64Array.from(decisions, (d) => d.distKpc);
-  const loKpc = Float64Array.from(decisions, (d) => d.loKpc);
-  const hiKpc = Float64Array.from(decisions, (d) => d.hiKpc);
+  // Reasons in the order of EXCLUSION_REASONS: the nominal velocity's tangent flags come before
+  // what the draws could not resolve.
+  const exclusion: (ExclusionReason | null)[] = draws.exclusion.map((r, c) => {
+    if (draws.method[c] !== 'kinematic') return r;
+    if (nominal.flags[c] & KINEMATIC_FLAG_BITS['beyond-terminal']) return 'beyond-terminal';
+    if (nominal.flags[c] & KINEMATIC_FLAG_BITS['near-tangent']) return 'near-tangent';
+    return r;
+  });
+  const offs = offsetsOfDraws(inputs.lDeg, inputs.bDeg, draws, arms, settings.armWidthKpc);
+  for (let c = 0; c < n; c++)
+    if (exclusion[c] === null && (offs.arm[c] < 0 || offs.onArmShare[c] < MIN_ON_ARM_SHARE))
+      exclusion[c] = 'off-arm';
+  const used = Int32Array.from(exclusion.flatMap((r, c) => (r === null ? [c] : [])));
+  progress(0.55);
 
-  const place = placeComplexes(inputs.lDeg, inputs.bDeg, distKpc, arms, R0);
-  const exclusion: (ExclusionReason | null)[] = decisions.map((d, c) =>
-    d.exclusion === null && place.armIndex[c] >= 0 && offArm(place, c, settings.armWidthKpc)
-      ? 'off-arm'
-      : d.exclusion,
+  const scratch = new Float64Array(D);
+  const onArmR = Float64Array.from(offs.RKpc, (R, k) =>
+    offs.perpKpc[k] === offs.perpKpc[k] ? R : NaN,
   );
-  const used = Uint8Array.from(exclusion, (r) => (r === null ? 1 : 0));
-  progress(0.6);
+  const medianR = Float64Array.from(
+    { length: n },
+    (_, c) => drawQuantiles(onArmR, c, D, [0.5], scratch)[0],
+  );
+  const distQ = Array.from({ length: n }, (_, c) =>
+    drawQuantiles(draws.distKpc, c, D, [0.5, 0.16, 0.84, 0.025, 0.975], scratch),
+  );
+  const perpQ = Array.from({ length: n }, (_, c) =>
+    drawQuantiles(offs.perpKpc, c, D, [0.5, 0.025, 0.975], scratch),
+  );
+  const azQ = Float64Array.from(
+    { length: n },
+    (_, c) => drawQuantiles(offs.azimuthDeg, c, D, [0.5], scratch)[0],
+  );
 
-  const memberDist = Float64Array.from(cols.complexIndex, (c) => distKpc[c]);
+  const matrices: DrawMatrices = { count: n, draws: D, values: [offs.perpKpc, offs.azimuthDeg] };
+  const counts = memberCounts(cols, n);
+  const mainPlan = classPlan(counts, used);
+  const armPlans = arms.map((_, a) =>
+    classPlan(
+      counts,
+      used.filter((c) => offs.arm[c] === a),
+    ),
+  );
+  const rings = radialPlan(medianR, used, counts, RING_WIDTH_KPC);
+  const groups = [
+    ...planGroups(mainPlan),
+    ...armPlans.flatMap(planGroups),
+    ...rings.gas,
+    ...rings.young,
+  ];
+  const reps = nestedReplicates(matrices, used, groups, resamples, deriveSeed(seed, SEED.nested));
+  progress(0.8);
+  let at = 0;
+  const take = (k: number) => reps.slice(at, (at += k));
+  const main = summarisePlan(matrices, mainPlan, take(planGroups(mainPlan).length));
+  const perArm = arms.map((arm, a) => {
+    const plan = armPlans[a];
+    const s = summarisePlan(matrices, plan, take(planGroups(plan).length));
+    return { arm: arm.name, n: used.filter((c) => offs.arm[c] === a).length, ...s };
+  });
+  const ringGas = take(rings.gas.length);
+  const ringYoung = take(rings.young.length);
+  const radial = radialSummaries(matrices, rings, ringGas, ringYoung, medianR, curve);
+  const fit = fitPatternSpeed(radial.fitBins, curve);
+  fit.usedBins.forEach((u, i) => {
+    if (u) radial.bins[radial.fitIndex[i]].fitted = true;
+  });
+  const patternFit: PatternFitSummary | null =
+    fit.constrained || fit.timescaleMyr !== null
+      ? {
+          patternSpeedKmsKpc: fit.patternSpeedKmsKpc,
+          patternSpeedCi95: fit.patternSpeedCi95,
+          timescaleMyr: fit.timescaleMyr,
+          timescaleCi95: fit.timescaleCi95,
+          corotationKpc: fit.corotationKpc,
+          corotationCi95: fit.corotationCi95,
+          binsUsed: fit.binsUsed,
+          constrained: fit.constrained,
+          reason: fit.reason,
+          notes: fit.notes,
+          line: fit.line,
+        }
+      : null;
+  const interpretation = interpretationOf(
+    patternFit,
+    settings.patternSpeedKmsKpc,
+    Array.from(used, (c) => medianR[c]).filter((R) => R > 0),
+    curve,
+  );
+  progress(0.85);
+
+  const cluster = cols.complexIndex;
+  const tangents = tangentOffsets(
+    { lDeg: cols.lDeg, bDeg: cols.bDeg, vLsrKms: cols.vLsrKms, kind: cols.kind, cluster },
+    arms,
+    curve,
+    {
+      ...TANGENT_DEFAULTS,
+      nearTerminalKms: null,
+      resamples,
+      seed: deriveSeed(seed, SEED.tangents),
+      patternSpeedKmsKpc: interpretation.patternSpeedKmsKpc,
+      patternSpeedLabel: interpretation.source,
+    },
+  );
+  const lv = lvOffsets(
+    { lDeg: cols.lDeg, bDeg: cols.bDeg, vLsrKms: cols.vLsrKms, kind: cols.kind, cluster },
+    arms,
+    curve,
+    { resamples, seed: deriveSeed(seed, SEED.lv) },
+  );
+  progress(0.92);
+
+  const medDist = Float64Array.from(distQ, (q) => q[0]);
+  const place = placeComplexes(inputs.lDeg, inputs.bDeg, medDist, arms, R0);
+  const memberDist = Float64Array.from(cols.complexIndex, (c) => medDist[c]);
   const members = placePoints(cols.lDeg, cols.bDeg, memberDist, R0);
-  const memberArm = Int32Array.from(cols.complexIndex, (c) => place.armIndex[c]);
-  const memberOffsets = offsetsFromAssignedArms(members.xKpc, members.yKpc, memberArm, arms, R0);
   const gts = gasToStarsColumns(
     cols.start,
     cols.kind,
@@ -102,165 +234,143 @@ export function runOrderingAnalysis(
     place.normalY,
     R0,
   );
-  const flow = flowSigns(inputs.lDeg, inputs.bDeg, distKpc, loKpc, hiKpc, curve, omegaP);
-  progress(0.7);
-
-  const kindsPresent = TRACER_KINDS.map((_, k) => k).filter((k) => cols.kind.includes(k));
-  const classInputs: ClassInputs = {
-    memberComplex: cols.complexIndex,
-    memberKind: cols.kind,
-    memberPerpKpc: memberOffsets.perpOffsetKpc,
-    memberAzimuthDeg: memberOffsets.azimuthOffsetDeg,
+  const intraComplex = intraComplexSummary(
+    gts.acrossKpc,
+    gts.alongKpc,
+    medDist,
     used,
-    flowSign: flow,
-  };
-  const classes = classSummaries(classInputs, kindsPresent, resamples, (k) =>
-    deriveSeed(seed, SEED.classes + k),
-  );
-  progress(0.8);
-  const signed = signedGasToStars(gts.acrossKpc, gts.alongKpc, used, flow);
-  const gasToStars = gasToStarsSummary(
-    signed,
+    settings.linkRadiusArcsec,
     resamples,
-    deriveSeed(seed, SEED.gasToStars),
-    deriveSeed(seed, SEED.signFlip),
+    deriveSeed(seed, SEED.intra),
+    deriveSeed(seed, SEED.intraTest),
   );
-  const ks = centroidOffsetKs(cols.start, cols.kind, memberOffsets.perpOffsetKpc, used, flow);
-  const delay = delaySummary(
-    gts.dBetaDeg,
-    place.RKpc,
-    used,
-    flow,
-    curve,
-    omegaP,
-    resamples,
-    deriveSeed(seed, SEED.delay),
-  );
-  progress(0.85);
-  const perArm = arms.map((arm, a) => {
-    const onArm = (c: number) => place.armIndex[c] === a;
-    const armClasses = classSummaries(
-      classInputs,
-      kindsPresent,
-      resamples,
-      (k) => deriveSeed(seed, SEED.perArm + 10 * a + k),
-      onArm,
-    );
-    const across: number[] = [];
-    let count = 0;
-    for (let c = 0; c < n; c++) if (used[c] && onArm(c)) count++;
-    for (let k = 0; k < signed.complex.length; k++)
-      if (onArm(signed.complex[k])) across.push(signed.acrossKpc[k]);
-    return {
-      arm: arm.name,
-      n: count,
-      classes: armClasses.map(({ kind, n: nk, medianOffsetKpc, ci95 }) => ({
-        kind,
-        n: nk,
-        medianOffsetKpc,
-        ci95,
-      })),
-      gasToStarsMedianKpc: across.length > 0 ? median(across) : null,
-    };
-  });
-  progress(0.95);
-  const bins = radialBins(gts.acrossKpc, place.RKpc, used, curve, omegaP, resamples, (b) =>
-    deriveSeed(seed, SEED.radial + b),
-  );
-  const corotationKpc = corotationRadiusKpc(curve, omegaP);
+  const gasOffsets = Array.from(used)
+    .filter((c) => counts.gas[c] > 0)
+    .map((c) => perpQ[c][0]);
+  const youngOffsets = Array.from(used)
+    .filter((c) => counts.young[c] > 0)
+    .map((c) => perpQ[c][0]);
+  const ks =
+    gasOffsets.length > 0 && youngOffsets.length > 0 ? ksTwoSample(gasOffsets, youngOffsets) : null;
 
   const reasons = countReasons(exclusion);
-  let usedCount = 0;
-  let straddling = 0;
-  for (let c = 0; c < n; c++) {
-    usedCount += used[c];
-    if (used[c] && flow[c] === 0) straddling++;
-  }
   const rows: ComplexRow[] = complexes.map((cx, c) => {
-    const d = decisions[c];
-    const placed = place.armIndex[c] >= 0;
-    const flags = [...d.flags];
-    if (used[c] && flow[c] === 0) flags.push('straddles-corotation');
+    const q = distQ[c];
+    const p = perpQ[c];
+    const excluded = exclusion[c] !== null;
+    const a = offs.arm[c];
     return {
       id: cx.id,
       lDeg: inputs.lDeg[c],
       bDeg: inputs.bDeg[c],
       vLsrKms: nullable(inputs.vLsrKms[c]),
-      distKpc: nullable(d.distKpc),
-      distLoKpc: nullable(d.loKpc),
-      distHiKpc: nullable(d.hiKpc),
-      choice: d.choice,
-      reason:
-        exclusion[c] === 'off-arm'
-          ? `${d.reason}; ${offArmWords(place, c, settings.armWidthKpc, arms[place.armIndex[c]].name)}`
-          : d.reason,
-      flags,
+      distKpc: nullable(q[0]),
+      distLoKpc: nullable(q[1]),
+      distHiKpc: nullable(q[2]),
+      distCi95: Number.isFinite(q[3]) ? [q[3], q[4]] : null,
+      pNear: nullable(draws.pNear[c]),
+      choice: choiceOf(
+        draws.method[c],
+        draws.pNear[c],
+        draws.tangentShare[c],
+        draws.method[c] === 'kinematic' && draws.validShare[c] < 0.5,
+      ),
+      reason: distanceWords(
+        draws.method[c],
+        draws.pNear[c],
+        draws.validShare[c],
+        settings.nearFar,
+        cx.distanceOverride?.note,
+      ),
+      flags: flagsFromBits(nominal.flags[c]),
       xKpc: nullable(place.xKpc[c]),
       yKpc: nullable(place.yKpc[c]),
-      RKpc: nullable(place.RKpc[c]),
+      RKpc: nullable(medianR[c]),
       betaDeg: nullable(place.betaDeg[c]),
-      arm: placed ? arms[place.armIndex[c]].name : null,
-      perpOffsetKpc: nullable(place.perpOffsetKpc[c]),
-      azimuthOffsetDeg: nullable(place.azimuthOffsetDeg[c]),
-      gasToStarsAcrossKpc: nullable(gts.acrossKpc[c]),
-      used: used[c] === 1,
+      arm: a >= 0 ? arms[a].name : null,
+      onArmShare: offs.onArmShare[c],
+      perpOffsetKpc: nullable(p[0]),
+      perpCi95: Number.isFinite(p[1]) ? [p[1], p[2]] : null,
+      azimuthOffsetDeg: nullable(azQ[c]),
+      intraAcrossKpc: nullable(gts.acrossKpc[c]),
+      used: !excluded,
       excludedBecause: exclusion[c],
     };
   });
   const sources: OrderingResult['sources'] = [];
   for (let i = 0; i < cols.count; i++) {
     if (!(members.xKpc[i] === members.xKpc[i])) continue;
+    const c = cols.complexIndex[i];
     sources.push({
-      complexId: complexes[cols.complexIndex[i]].id,
+      complexId: complexes[c].id,
       kind: TRACER_KINDS[cols.kind[i]],
       xKpc: members.xKpc[i],
       yKpc: members.yKpc[i],
-      perpOffsetKpc: nullable(memberOffsets.perpOffsetKpc[i]),
+      perpOffsetKpc: nullable(perpQ[c][0]),
     });
   }
+  const widths = Array.from(used, (c) => distQ[c][2] - distQ[c][1]).filter((w) => w >= 0);
+  const constantsWithoutError = settings.R0ErrKpc === 0 && settings.theta0ErrKms === 0;
   const warnings = warningsFor({
     complexes: n,
-    used: usedCount,
+    used: used.length,
     reasons,
     velocityFallback: inputs.velocitySource.filter((s) => s === VELOCITY_SOURCE.allFallback).length,
-    independentInsteadOfKinematic: decisions.filter((d) => d.choice === 'independent').length,
-    straddlingCorotation: straddling,
-    nearCorotationDelays: delay.nearCorotationCount,
-    orbitAlongSight: countUsed(gts.orbitAlongSight, used),
-    gasToStars: gasToStars.n,
-    corotationKpc,
-    allInside: angularSpeedKmsKpc(R0, curve) > omegaP,
+    independentInsteadOfKinematic: draws.method.filter((m) => m === 'independent').length,
+    ambiguousNearFar: Array.from(used).filter((c) => draws.pNear[c] > 0.2 && draws.pNear[c] < 0.8)
+      .length,
+    gasComplexes: mainPlan.gasPerp.complexes.length,
+    youngComplexes: mainPlan.youngPerp.complexes.length,
+    constantsWithoutError,
+    armsR0Kpc: settings.armsR0Kpc,
+    curveR0Kpc: R0,
   });
-  progress(1);
-  return {
-    classes,
-    gasToStars,
-    delayMyr: delay.summary,
-    ks,
+  const lvMasked: Record<string, number> = { ...lv.masked };
+  const body: Omit<OrderingResult, 'headline'> = {
+    classes: main.classes,
+    youngMinusGas: main.youngMinusGas,
     perArm,
-    radialBins: bins,
-    corotationKpc,
-    exclusions: { complexes: n, used: usedCount, reasons },
+    radialBins: radial.bins,
+    patternFit,
+    patternFitReason: patternFit ? null : fit.reason,
+    interpretation,
+    tangents,
+    lvOffsets: lv.rows,
+    lvMasked,
+    intraComplex,
+    ks: ks ? { d: ks.d, pValue: ks.pValue } : null,
+    distances: {
+      draws: D,
+      nearFar: settings.nearFar,
+      sigmaStreamKms: settings.sigmaStreamKms,
+      R0Kpc: R0,
+      R0ErrKpc: settings.R0ErrKpc,
+      theta0Kms: curve.theta0Kms,
+      theta0ErrKms: settings.theta0ErrKms,
+      medianCi68WidthKpc: widths.length > 0 ? median(widths) : null,
+    },
+    exclusions: { complexes: n, used: used.length, reasons },
     warnings,
     complexes: rows,
     sources,
-    conventions: conventionsText({
-      corotationKpc,
-      patternSpeedKmsKpc: omegaP,
-      resamples,
-      seed,
-      R0Kpc: R0,
-    }),
+    conventions: conventionsText({ R0Kpc: R0, resamples, seed, draws: D }),
   };
+  progress(1);
+  return { headline: headlineOf(body, used.length, D), ...body };
 }
 
-function countUsed(flag: Uint8Array, used: Uint8Array): number {
-  let k = 0;
-  for (let c = 0; c < flag.length; c++) k += flag[c] & used[c];
-  return k;
-}
-
-function offArmWords(p: ComplexPlacement, c: number, widthKpc: number, arm: string): string {
-  if (!p.withinRange[c]) return `nearest arm ${arm} ends before this complex`;
-  return `${Math.abs(p.perpOffsetKpc[c]).toFixed(2)} kpc from the ridge of ${arm}, beyond the arm width ${widthKpc} kpc`;
+function distanceWords(
+  method: string,
+  pNear: number,
+  validShare: number,
+  rule: string,
+  note: string | undefined,
+): string {
+  if (method === 'override') return `distance set by hand${note ? `: ${note}` : ''}`;
+  if (method === 'independent') return "a member's independent distance, drawn with its error";
+  if (method === 'none') return 'no usable velocity or independent distance';
+  const valid = `${Math.round(validShare * 100)} % of the draws have a distance`;
+  if (!(pNear === pNear))
+    return `kinematic distance, one root (outside the solar circle); ${valid}`;
+  return `kinematic distance, near in ${Math.round(pNear * 100)} % of the two-root draws (${rule} rule); ${valid}`;
 }

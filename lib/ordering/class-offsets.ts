@@ -1,65 +1,125 @@
 /**
- * Offsets of each tracer class from the arm ridges (SCIENCE.md §6): for the members of the
- * complexes that are used, their perpendicular offsets from the ridge of their complex's arm,
- * signed downstream — multiplied by the complex's flow sign s = sign(Ω(R) − Ω_p), so positive
- * means ahead inside corotation and behind outside it. Complexes whose side of corotation is not
- * known (s = 0) are left out. Median and mean with cluster-bootstrap 95 % intervals (complexes
- * resampled), and the median azimuthal offset signed the same way.
+ * Offsets of the tracer classes from the arm ridges, measured in the sense of rotation (positive
+ * ahead), with intervals that carry each complex's distance distribution (docs/methods.md,
+ * "Class offsets"). A member takes its complex's offset in every draw: members of one complex lie
+ * within the link radius of each other, a few pc at most, far below the distance errors. The
+ * young-minus-gas offset is the difference of the two medians within each resample, so its
+ * interval is that of the difference itself.
  */
-import { median } from '@/lib/stats/summary';
-import { clusterBootstrap } from './cluster-bootstrap';
-import { TRACER_KINDS } from './members';
-import type { ClassSummary } from './types';
+import { isGasKind, isYoungKind, TRACER_KINDS, type MemberColumns } from './members';
+import { percentileCi, pooledMedian, type DrawMatrices, type Group } from './nested-bootstrap';
+import type { ClassSummary, YoungMinusGas } from './types';
 
-/** Member and complex columns the class summaries read. */
-export type ClassInputs = {
-  memberComplex: Int32Array;
-  memberKind: Uint8Array;
-  memberPerpKpc: Float64Array;
-  memberAzimuthDeg: Float64Array;
-  /** Per complex: 1 if used by the statistics, and its flow sign (+1, −1, 0). */
-  used: Uint8Array;
-  flowSign: Int8Array;
+/** Matrix index of each quantity in the analysis's {@link DrawMatrices}. */
+export const MATRIX = { perp: 0, azimuth: 1 } as const;
+
+/** Members of each kind, gas and young, per complex. */
+export type MemberCounts = { perKind: Int32Array[]; gas: Int32Array; young: Int32Array };
+
+/** Counts members per complex and class (complex c's members are rows start[c] … start[c+1]−1). */
+export function memberCounts(cols: MemberColumns, nComplexes: number): MemberCounts {
+  const perKind = TRACER_KINDS.map(() => new Int32Array(nComplexes));
+  const gas = new Int32Array(nComplexes);
+  const young = new Int32Array(nComplexes);
+  for (let c = 0; c < nComplexes; c++)
+    for (let i = cols.start[c]; i < cols.start[c + 1]; i++) {
+      const k = cols.kind[i];
+      perKind[k][c]++;
+      if (isGasKind(k)) gas[c]++;
+      if (isYoungKind(k)) young[c]++;
+    }
+  return { perKind, gas, young };
+}
+
+/** The group of complexes in `keep` with members counted in `counts`, on one matrix. */
+export function groupOf(counts: Int32Array, keep: Int32Array, matrix: number): Group {
+  const complexes: number[] = [];
+  const weights: number[] = [];
+  for (const c of keep)
+    if (counts[c] > 0) {
+      complexes.push(c);
+      weights.push(counts[c]);
+    }
+  return { complexes: Int32Array.from(complexes), weights: Float64Array.from(weights), matrix };
+}
+
+function members(g: Group): number {
+  return g.weights.reduce((s, w) => s + w, 0);
+}
+
+function nullable(x: number): number | null {
+  return Number.isFinite(x) ? x : null;
+}
+
+/** Plans the groups of one set of complexes: every kind (perp, azimuth), gas and young (both). */
+export type ClassPlan = {
+  kinds: number[];
+  perp: Group[];
+  azimuth: Group[];
+  gasPerp: Group;
+  youngPerp: Group;
+  gasAzimuth: Group;
+  youngAzimuth: Group;
 };
 
-/**
- * Summaries of the classes listed in `kinds` (indices into TRACER_KINDS) over the used members
- * whose complex passes `keep` (e.g. one arm). Seeds derive from `seedOf(kind)`.
- */
-export function classSummaries(
-  input: ClassInputs,
-  kinds: number[],
-  resamples: number,
-  seedOf: (kind: number) => number,
-  keep: (complex: number) => boolean = () => true,
-): ClassSummary[] {
-  const n = input.memberComplex.length;
-  return kinds.map((k) => {
-    const perp: number[] = [];
-    const az: number[] = [];
-    const clusters: number[] = [];
-    for (let i = 0; i < n; i++) {
-      const c = input.memberComplex[i];
-      const s = input.flowSign[c];
-      if (input.memberKind[i] !== k || !input.used[c] || s === 0 || !keep(c)) continue;
-      perp.push(s * input.memberPerpKpc[i]);
-      az.push(s * input.memberAzimuthDeg[i]);
-      clusters.push(c);
-    }
-    const b = clusterBootstrap(
-      Float64Array.from(perp),
-      Int32Array.from(clusters),
-      resamples,
-      seedOf(k),
-    );
+/** Groups for the classes of the complexes in `keep`. */
+export function classPlan(counts: MemberCounts, keep: Int32Array): ClassPlan {
+  const kinds = TRACER_KINDS.map((_, k) => k).filter((k) =>
+    keep.some((c) => counts.perKind[k][c] > 0),
+  );
+  return {
+    kinds,
+    perp: kinds.map((k) => groupOf(counts.perKind[k], keep, MATRIX.perp)),
+    azimuth: kinds.map((k) => groupOf(counts.perKind[k], keep, MATRIX.azimuth)),
+    gasPerp: groupOf(counts.gas, keep, MATRIX.perp),
+    youngPerp: groupOf(counts.young, keep, MATRIX.perp),
+    gasAzimuth: groupOf(counts.gas, keep, MATRIX.azimuth),
+    youngAzimuth: groupOf(counts.young, keep, MATRIX.azimuth),
+  };
+}
+
+/** Every group of a plan, in a fixed order (the order {@link summarisePlan} reads replicates). */
+export function planGroups(p: ClassPlan): Group[] {
+  return [...p.perp, ...p.azimuth, p.gasPerp, p.youngPerp, p.gasAzimuth, p.youngAzimuth];
+}
+
+function difference(a: Float64Array, b: Float64Array): Float64Array {
+  return Float64Array.from(a, (x, r) => x - b[r]);
+}
+
+/** Summaries of a plan from its groups' replicates (in {@link planGroups} order). */
+export function summarisePlan(
+  m: DrawMatrices,
+  p: ClassPlan,
+  reps: Float64Array[],
+): { classes: ClassSummary[]; youngMinusGas: YoungMinusGas } {
+  const nk = p.kinds.length;
+  const classes = p.kinds.map((k, i) => {
+    const g = p.perp[i];
+    const empty = g.complexes.length === 0;
     return {
       kind: TRACER_KINDS[k],
-      n: perp.length,
-      medianOffsetKpc: b ? b.median : null,
-      ci95: b ? b.medianCi : null,
-      meanOffsetKpc: b ? b.mean : null,
-      meanCi95: b ? b.meanCi : null,
-      medianAzimuthOffsetDeg: az.length > 0 ? median(az) : null,
+      n: members(g),
+      nComplexes: g.complexes.length,
+      medianOffsetKpc: empty ? null : nullable(pooledMedian(m, g)),
+      ci95: empty ? null : percentileCi(reps[i]),
+      medianAzimuthOffsetDeg: empty ? null : nullable(pooledMedian(m, p.azimuth[i])),
+      azimuthCi95: empty ? null : percentileCi(reps[nk + i]),
     };
   });
+  const [gp, yp, ga, ya] = reps.slice(2 * nk);
+  const both = p.gasPerp.complexes.length > 0 && p.youngPerp.complexes.length > 0;
+  const youngMinusGas: YoungMinusGas = {
+    nGas: members(p.gasPerp),
+    nYoung: members(p.youngPerp),
+    medianOffsetKpc: both
+      ? nullable(pooledMedian(m, p.youngPerp) - pooledMedian(m, p.gasPerp))
+      : null,
+    ci95: both ? percentileCi(difference(yp, gp)) : null,
+    azimuthDeg: both
+      ? nullable(pooledMedian(m, p.youngAzimuth) - pooledMedian(m, p.gasAzimuth))
+      : null,
+    azimuthCi95: both ? percentileCi(difference(ya, ga)) : null,
+  };
+  return { classes, youngMinusGas };
 }

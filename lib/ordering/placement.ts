@@ -4,7 +4,8 @@
  * perpendicular offset (kpc) and azimuthal offset at the same R (deg), both positive ahead of the
  * ridge in the sense of Galactic rotation, and the ridge normal at each complex.
  */
-import { offsetsFromArmsBulk, type ArmSpec } from '@/lib/astro/arms';
+import type { ArmSpec } from '@/lib/astro/arms';
+import { ridgeOffsetsBulk } from './ridge-offset';
 import { toGalactocentric } from '@/lib/astro/galactocentric';
 
 /** Half step (kpc) of the central differences that give the ridge normal. */
@@ -73,7 +74,6 @@ export function offsetsFromAssignedArms(
   yKpc: Float64Array,
   armOf: Int32Array,
   arms: ArmSpec[],
-  R0Kpc: number,
 ): { perpOffsetKpc: Float64Array; azimuthOffsetDeg: Float64Array } {
   const n = xKpc.length;
   const perpOffsetKpc = new Float64Array(n).fill(NaN);
@@ -83,7 +83,7 @@ export function offsetsFromAssignedArms(
     for (let i = 0; i < n; i++) if (armOf[i] === a && xKpc[i] === xKpc[i]) idx.push(i);
     if (idx.length === 0) return;
     const sel = Int32Array.from(idx);
-    const r = offsetsFromArmsBulk(gather(xKpc, sel), gather(yKpc, sel), [arm], R0Kpc);
+    const r = ridgeOffsetsBulk(gather(xKpc, sel), gather(yKpc, sel), [arm]);
     for (let k = 0; k < sel.length; k++) {
       perpOffsetKpc[sel[k]] = r.perpOffsetKpc[k];
       azimuthOffsetDeg[sel[k]] = r.azimuthOffsetDeg[k];
@@ -108,7 +108,7 @@ export function ridgeNormals(
   const h = NORMAL_STEP_KPC;
   const all = new Int32Array(n).map((_, i) => i);
   const at = (dx: number, dy: number) =>
-    offsetsFromAssignedArms(gather(xKpc, all, dx), gather(yKpc, all, dy), armOf, arms, R0Kpc)
+    offsetsFromAssignedArms(gather(xKpc, all, dx), gather(yKpc, all, dy), armOf, arms)
       .perpOffsetKpc;
   const xp = at(h, 0);
   const xm = at(-h, 0);
@@ -145,7 +145,7 @@ export function placeComplexes(
   const withinRange = new Uint8Array(n);
   const idx = placedIndices(pos.xKpc);
   if (idx.length > 0) {
-    const r = offsetsFromArmsBulk(gather(pos.xKpc, idx), gather(pos.yKpc, idx), arms, R0Kpc);
+    const r = ridgeOffsetsBulk(gather(pos.xKpc, idx), gather(pos.yKpc, idx), arms);
     for (let k = 0; k < idx.length; k++) {
       const i = idx[k];
       armIndex[i] = r.armIndex[k];

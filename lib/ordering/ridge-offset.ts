@@ -200,3 +200,37 @@ function azimuthOffsetAtRadius(g: ArmGeometry, lnR: number, betaDeg: number): nu
   consider(g.tanAbove, false);
   return off * ROTATION_SENSE;
 }
+
+/** {@link ridgeOffset} for columns of points, in the shape of `offsetsFromArmsBulk`. */
+export function ridgeOffsetsBulk(
+  xKpc: Float64Array,
+  yKpc: Float64Array,
+  arms: ArmSpec[],
+): {
+  armIndex: Int32Array;
+  perpOffsetKpc: Float64Array;
+  azimuthOffsetDeg: Float64Array;
+  withinRange: Uint8Array;
+} {
+  const n = xKpc.length;
+  if (yKpc.length !== n) throw new RangeError(`column lengths differ: x ${n}, y ${yKpc.length}`);
+  const p = prepareRidges(arms);
+  const out: RidgeOffset = {
+    armIndex: -1,
+    perpOffsetKpc: NaN,
+    azimuthOffsetDeg: NaN,
+    withinRange: false,
+  };
+  const armIndex = new Int32Array(n);
+  const perpOffsetKpc = new Float64Array(n);
+  const azimuthOffsetDeg = new Float64Array(n);
+  const withinRange = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    ridgeOffset(p, xKpc[i], yKpc[i], out);
+    armIndex[i] = out.armIndex;
+    perpOffsetKpc[i] = out.perpOffsetKpc;
+    azimuthOffsetDeg[i] = out.azimuthOffsetDeg;
+    withinRange[i] = out.withinRange ? 1 : 0;
+  }
+  return { armIndex, perpOffsetKpc, azimuthOffsetDeg, withinRange };
+}

@@ -2,9 +2,18 @@
  * Validation of the analysis settings: every number is checked before any work starts, and an
  * error names the setting and its value.
  */
-import type { OrderingComplex, OrderingSettings } from './types';
+import type { NearFarRule, OrderingComplex, OrderingSettings } from './types';
 
-/** Fewest bootstrap resamples / permutations accepted (SCIENCE.md §6: ≥ 2 000). */
+/** The near/far rules of the distance draws. */
+export const NEAR_FAR_RULES: readonly NearFarRule[] = [
+  'probabilistic',
+  'near',
+  'far',
+  'latitude',
+  'independent',
+];
+
+/** Fewest bootstrap resamples / permutations accepted (≥ 2 000, docs/methods.md "Intervals"). */
 export const MIN_RESAMPLES = 2000;
 
 function fail(field: string, value: unknown, rule: string): never {
@@ -19,8 +28,30 @@ export function validateSettings(s: OrderingSettings): void {
     fail('arms', s.arms, 'must list at least one arm');
   if (!(s.armWidthKpc > 0 && s.armWidthKpc < Infinity))
     fail('armWidthKpc', s.armWidthKpc, 'must be a positive number of kpc');
-  if (!(s.patternSpeedKmsKpc >= 0 && s.patternSpeedKmsKpc < Infinity))
-    fail('patternSpeedKmsKpc', s.patternSpeedKmsKpc, 'must be a non-negative number of km/s/kpc');
+  if (
+    s.patternSpeedKmsKpc !== null &&
+    !(s.patternSpeedKmsKpc > 0 && s.patternSpeedKmsKpc < Infinity)
+  )
+    fail(
+      'patternSpeedKmsKpc',
+      s.patternSpeedKmsKpc,
+      'must be null or a positive number of km/s/kpc',
+    );
+  if (!(s.R0ErrKpc >= 0 && s.R0ErrKpc < 2))
+    fail('R0ErrKpc', s.R0ErrKpc, 'must be a number of kpc in [0, 2)');
+  if (!(s.theta0ErrKms >= 0 && s.theta0ErrKms < 50))
+    fail('theta0ErrKms', s.theta0ErrKms, 'must be a number of km/s in [0, 50)');
+  if (!NEAR_FAR_RULES.includes(s.nearFar))
+    fail('nearFar', s.nearFar, `must be one of ${NEAR_FAR_RULES.join(', ')}`);
+  if (
+    s.linkRadiusArcsec !== null &&
+    !(s.linkRadiusArcsec[0] > 0 && s.linkRadiusArcsec[1] >= s.linkRadiusArcsec[0])
+  )
+    fail(
+      'linkRadiusArcsec',
+      s.linkRadiusArcsec,
+      'must be null or [smallest, largest] positive radii',
+    );
   if (!(s.sigmaStreamKms >= 0 && s.sigmaStreamKms < Infinity))
     fail('sigmaStreamKms', s.sigmaStreamKms, 'must be a non-negative number of km/s');
   if (!(s.scaleHeightKpc > 0 && s.scaleHeightKpc < Infinity))

@@ -1,10 +1,10 @@
 /**
  * Plain-words warnings with counts for an ordering result: what was left out and why, and where
- * a number rests on little data (warn, don't hide).
+ * a number rests on little data or leaves an error out (warn, don't hide).
  */
 import { EXCLUSION_REASONS, EXCLUSION_WORDS, type ExclusionReason } from './exclusions';
 
-/** Gas→stars samples smaller than this get a warning that the interval and p-value are fragile. */
+/** Statistics over fewer complexes than this get a warning that their intervals are fragile. */
 export const FEW_COMPLEXES = 10;
 
 /** Counts the warnings are written from. */
@@ -14,12 +14,13 @@ export type WarningCounts = {
   reasons: Record<ExclusionReason, number>;
   velocityFallback: number;
   independentInsteadOfKinematic: number;
-  straddlingCorotation: number;
-  nearCorotationDelays: number;
-  orbitAlongSight: number;
-  gasToStars: number;
-  corotationKpc: number | null;
-  allInside: boolean;
+  /** Used complexes whose near/far draws split between 20 % and 80 %. */
+  ambiguousNearFar: number;
+  gasComplexes: number;
+  youngComplexes: number;
+  constantsWithoutError: boolean;
+  armsR0Kpc: number | null;
+  curveR0Kpc: number;
 };
 
 /** The warnings, in a fixed order; empty when nothing needs saying. */
@@ -29,7 +30,7 @@ export function warningsFor(w: WarningCounts): string[] {
   for (const r of EXCLUSION_REASONS)
     if (w.reasons[r] > 0) out.push(`${w.reasons[r]} ${of} left out: ${EXCLUSION_WORDS[r]}.`);
   if (w.complexes > 0 && w.used === 0)
-    out.push('No complex could be used, so there are no ordering statistics.');
+    out.push('No complex could be used, so there are no class offsets.');
   if (w.velocityFallback > 0)
     out.push(
       `${w.velocityFallback} ${of} have no gas member with a velocity; their kinematic distance uses the velocities of all their members.`,
@@ -38,25 +39,21 @@ export function warningsFor(w: WarningCounts): string[] {
     out.push(
       `${w.independentInsteadOfKinematic} ${of} use a member's independent distance because their kinematic distance is missing or unreliable.`,
     );
-  if (w.corotationKpc === null)
+  if (w.ambiguousNearFar > 0)
     out.push(
-      `The rotation curve never meets the pattern speed, so every complex counts as ${w.allInside ? 'inside' : 'outside'} corotation.`,
+      `${w.ambiguousNearFar} used complex${w.ambiguousNearFar === 1 ? ' has' : 'es have'} near/far draws split between 20 % and 80 %: both placements enter their intervals.`,
     );
-  if (w.straddlingCorotation > 0)
+  if (w.used > 0 && (w.gasComplexes < FEW_COMPLEXES || w.youngComplexes < FEW_COMPLEXES))
     out.push(
-      `${w.straddlingCorotation} used complex${w.straddlingCorotation === 1 ? '' : 'es'} have a distance interval reaching across corotation (R = ${w.corotationKpc?.toFixed(2)} kpc); left out of the downstream-signed statistics (classes, gas→stars, delay, KS) but kept in the radial bins.`,
+      `Only ${w.gasComplexes} used complexes have gas members and ${w.youngComplexes} have young-star members; the class intervals rest on few complexes.`,
     );
-  if (w.orbitAlongSight > 0)
+  if (w.constantsWithoutError)
     out.push(
-      `${w.orbitAlongSight} used complex${w.orbitAlongSight === 1 ? '' : 'es'} with gas and young stars lie where the orbit runs within 30° of the line of sight, so their gas→stars displacement cannot be deprojected; left out of gas→stars, delay and radial bins.`,
+      "The rotation curve's R0 and Θ0 carry no uncertainty in this analysis (the preset states none and none was given), so the intervals leave the Galactic constants out.",
     );
-  if (w.nearCorotationDelays > 0)
+  if (w.armsR0Kpc !== null && Math.abs(w.armsR0Kpc - w.curveR0Kpc) > 0.005)
     out.push(
-      `${w.nearCorotationDelays} complex${w.nearCorotationDelays === 1 ? '' : 'es'} lie so close to corotation (|Ω − Ω_p| < 10 % of Ω_p) that no delay was computed for them.`,
-    );
-  if (w.used > 0 && w.gasToStars < FEW_COMPLEXES)
-    out.push(
-      `Only ${w.gasToStars} used complex${w.gasToStars === 1 ? ' has' : 'es have'} both gas and young-star members; the gas→stars interval and p-value rest on very few complexes.`,
+      `The arms were fitted with R0 = ${w.armsR0Kpc} kpc and the curve uses R0 = ${w.curveR0Kpc} kpc: positions shift by about ${Math.round(Math.abs(w.armsR0Kpc - w.curveR0Kpc) * 1000)} pc near the Sun against the arms; rescale the arms or use one R0.`,
     );
   return out;
 }

@@ -26,29 +26,34 @@ export async function analysisCsv(
   const { result } = await doneResult(analysisId);
   if (table === 'classes') {
     const head = [
+      'scope',
       'kind',
       'n',
+      'n_complexes',
       'median_offset_kpc',
-      'median_ci95_lo',
-      'median_ci95_hi',
-      'mean_offset_kpc',
-      'mean_ci95_lo',
-      'mean_ci95_hi',
+      'ci95_lo_kpc',
+      'ci95_hi_kpc',
       'median_azimuth_offset_deg',
+      'azimuth_ci95_lo_deg',
+      'azimuth_ci95_hi_deg',
     ];
-    return [
-      csvLine(head),
-      ...result.classes.map((c) =>
+    const rows = (scope: string, classes: OrderingResult['classes']) =>
+      classes.map((c) =>
         csvLine([
+          scope,
           c.kind,
           c.n,
+          c.nComplexes,
           c.medianOffsetKpc,
           ...ci(c.ci95),
-          c.meanOffsetKpc,
-          ...ci(c.meanCi95),
           c.medianAzimuthOffsetDeg,
+          ...ci(c.azimuthCi95),
         ]),
-      ),
+      );
+    return [
+      csvLine(head),
+      ...rows('all arms', result.classes),
+      ...result.perArm.flatMap((a) => rows(a.arm, a.classes)),
     ].join('');
   }
   if (table === 'sources') {
@@ -65,6 +70,9 @@ export async function analysisCsv(
     'dist_kpc',
     'dist_lo_kpc',
     'dist_hi_kpc',
+    'dist_ci95_lo_kpc',
+    'dist_ci95_hi_kpc',
+    'p_near',
     'distance_choice',
     'distance_reason',
     'flags',
@@ -73,9 +81,12 @@ export async function analysisCsv(
     'R_kpc',
     'beta_deg',
     'arm',
+    'on_arm_share',
     'perp_offset_kpc',
+    'perp_ci95_lo_kpc',
+    'perp_ci95_hi_kpc',
     'azimuth_offset_deg',
-    'gas_to_stars_across_kpc',
+    'intra_complex_across_kpc',
     'used',
     'excluded_because',
   ];
@@ -90,6 +101,8 @@ export async function analysisCsv(
         c.distKpc,
         c.distLoKpc,
         c.distHiKpc,
+        ...ci(c.distCi95),
+        c.pNear,
         c.choice,
         c.reason,
         c.flags.join(' '),
@@ -98,9 +111,11 @@ export async function analysisCsv(
         c.RKpc,
         c.betaDeg,
         c.arm,
+        c.onArmShare,
         c.perpOffsetKpc,
+        ...ci(c.perpCi95),
         c.azimuthOffsetDeg,
-        c.gasToStarsAcrossKpc,
+        c.intraAcrossKpc,
         c.used,
         c.excludedBecause,
       ]),
@@ -111,47 +126,60 @@ export async function analysisCsv(
 const fmt = (x: number | null | undefined, digits = 3) =>
   x === null || x === undefined ? 'n/a' : x.toFixed(digits);
 
-/** A methods text for the paper: every parameter with its reference, then the results. */
+const ciText = (c: [number, number] | null, digits = 3) =>
+  c ? `${fmt(c[0], digits)} to ${fmt(c[1], digits)}` : 'n/a';
+
+/** A methods text for the paper: one paragraph with every parameter and reference, then the results. */
 export async function analysisMethods(analysisId: string): Promise<string> {
   const { a, result } = await doneResult(analysisId);
   const p = analysisSchema.parse(a.params);
   const curve = toolCurve(p.curve.name, p.curve.R0, p.curve.theta0);
   const arms = armsOf(p);
-  const g = result.gasToStars;
+  const d = result.distances;
+  const y = result.youngMinusGas;
+  const fit = result.patternFit;
+  const it = result.interpretation;
+  const paragraph = [
+    `We measured the ordering of gas (HI, CO) and young stars (HII regions, OB associations) across the spiral arms with Lanewise ${pkg.version} (analysis ${a.id} of link run ${a.runId}, ${a.runName ?? ''}).`,
+    `Kinematic distances assume circular rotation on the ${curve.label} (${curve.source}) with R0 = ${curve.R0Kpc} kpc and Θ0 = ${curve.theta0Kms.toFixed(1)} km/s; each complex's distance is a distribution of ${d.draws} Monte Carlo draws over its velocity (measurement error in quadrature with σ_stream = ${d.sigmaStreamKms} km/s of streaming motions), over R0 and Θ0 (σ = ${d.R0ErrKpc} kpc and ${d.theta0ErrKms} km/s, shared by all complexes of a draw), and over the near/far choice (${p.nearFar} rule; scale height ${p.scaleHeightKpc} kpc; independent distances of linked tracers as likelihoods), with velocities from ${p.velocityFrom === 'gas' ? 'the gas members' : 'all members'} of each complex.`,
+    `Arms are log spirals ln(R/R_ref) = −(β − β_ref) tan ψ (Reid et al. 2014) from ${arms.label} (${arms.source}); each draw is measured against its nearest ridge within ${p.armWidthKpc} kpc, and no arm prior enters the distances.`,
+    `Offsets are signed positive ahead of the ridge in the sense of Galactic rotation; class medians and the young-minus-gas difference carry 95 % percentile intervals from a nested bootstrap over complexes and their distance draws (${p.resamples} resamples, seed ${p.seed}; Efron & Tibshirani 1993; Davison & Hinkley 1997).`,
+    "Independently of kinematic distances, each class's tangent longitude at the model arm tangents was taken from a kernel-smoothed longitude profile of sources with |b| < 1°, with ΔR = R0 |cos l_t| Δl and Δn = ΔR cos ψ; offsets in the longitude–velocity plane were converted with ∂v/∂n of the model.",
+    'The pattern speed and timescale were fitted to the young-minus-gas azimuthal offsets in 1 kpc rings as Δφ(R) = 1.0227·10⁻³ (Ω(R) − Ω_p) t (Egusa et al. 2004, 2009).',
+  ].join(' ');
   const lines = [
-    `Lanewise ${pkg.version} ordering analysis ${a.id} of link run ${a.runId} (${a.runName ?? ''}), finished ${a.finishedAt ?? ''}.`,
-    '',
-    'Parameters',
-    `- Rotation curve: ${curve.label} (${curve.source}); R0 = ${curve.R0Kpc} kpc, Θ0 = Θ(R0) = ${curve.theta0Kms.toFixed(2)} km/s.`,
-    `- Kinematic distances: circular rotation, v_LSR = R0 sin l cos b (Θ(R)/R − Θ0/R0) (SCIENCE §4); velocities from ${p.velocityFrom === 'gas' ? 'the gas members' : 'all members'} of each complex.`,
-    `- Uncertainties: Monte Carlo, ${p.mcDraws} draws per complex, σ² = σ_meas² + σ_stream², σ_stream = ${p.sigmaStreamKms} km/s (common practice: 5–10 km/s streaming near arms).`,
-    `- Near/far ambiguity: an independent distance of a linked tracer where one exists; else the near root when the far root lies more than 2.5 scale heights from the plane, scale height ${p.scaleHeightKpc} kpc (common practice).`,
-    '- Excluded: |l| < 15° and |l − 180°| < 15° (kinematic distances unreliable), velocities beyond the terminal velocity, sources near the tangent point, complexes without velocity or distance, and complexes farther than the arm width from every arm.',
-    `- Arm model: ${arms.label} (${arms.source}); log spirals ln(R/R_ref) = −(β − β_ref) tan ψ (Reid et al. 2014, ApJ 783, 130); arm width ${p.armWidthKpc} kpc.`,
-    `- Pattern speed Ω_p = ${p.patternSpeed} km/s/kpc; corotation at ${fmt(result.corotationKpc, 2)} kpc. Delay t = Δβ / (Ω(R) − Ω_p), 1 km/s/kpc = 1.0227 Gyr⁻¹.`,
-    `- Statistics: medians with percentile-bootstrap 95 % intervals (${p.resamples} resamples, seed ${p.seed}; Efron & Tibshirani 1993); sign-flip permutation test for young stars ahead of gas; two-sample Kolmogorov–Smirnov test.`,
-    `- Frame: ${result.conventions}`,
+    paragraph,
     '',
     'Results',
-    `- Complexes: ${result.exclusions.complexes}, used ${result.exclusions.used}; excluded: ${
+    `- Complexes: ${result.exclusions.complexes}, used ${result.exclusions.used}; left out: ${
       Object.entries(result.exclusions.reasons)
+        .filter(([, v]) => v > 0)
         .map(([k, v]) => `${k} ${v}`)
         .join(', ') || 'none'
     }.`,
     ...result.classes.map(
       (c) =>
-        `- ${c.kind.toUpperCase()}: n = ${c.n}, median offset from the ridge ${fmt(c.medianOffsetKpc)} kpc (95 % CI ${c.ci95 ? `${fmt(c.ci95[0])} to ${fmt(c.ci95[1])}` : 'n/a'}).`,
+        `- ${c.kind.toUpperCase()}: n = ${c.n} in ${c.nComplexes} complexes, median offset from the ridge ${fmt(c.medianOffsetKpc)} kpc (95 % interval ${ciText(c.ci95)}).`,
     ),
-    `- Gas → young stars across the arm: n = ${g.n}, median ${fmt(g.medianAcrossKpc)} kpc (95 % CI ${g.ci95 ? `${fmt(g.ci95[0])} to ${fmt(g.ci95[1])}` : 'n/a'}), permutation p = ${fmt(g.pValue, 4)}.`,
-    `- Delay: median ${fmt(result.delayMyr.median, 2)} Myr (95 % CI ${result.delayMyr.ci95 ? `${fmt(result.delayMyr.ci95[0], 2)} to ${fmt(result.delayMyr.ci95[1], 2)}` : 'n/a'}), n = ${result.delayMyr.n}.`,
+    `- Young minus gas: ${fmt(y.medianOffsetKpc)} kpc (95 % interval ${ciText(y.ci95)}).`,
+    ...result.tangents.flatMap((t) =>
+      t.offsets.map(
+        (o) =>
+          `- Tangent ${t.arm} (model l = ${fmt(t.modelTangentLDeg, 2)}°): ${o.from} → ${o.to} Δl = ${fmt(o.dlDeg, 2)}°, Δn = ${fmt(o.dnKpc)} kpc (95 % interval ${ciText(o.dnCi95)}).`,
+      ),
+    ),
+    fit
+      ? `- Pattern fit (${fit.binsUsed} rings): Ω_p = ${fmt(fit.patternSpeedKmsKpc, 1)} km/s/kpc (${ciText(fit.patternSpeedCi95, 1)}), t = ${fmt(fit.timescaleMyr, 1)} Myr (${ciText(fit.timescaleCi95, 1)}), corotation ${fmt(fit.corotationKpc, 2)} kpc.${fit.reason ? ` ${fit.reason}.` : ''}`
+      : `- Pattern fit: not constrained (${result.patternFitReason ?? 'too few rings'}).`,
+    `- Interpretation: ${it.source === null ? 'no pattern speed fitted or stated' : `${it.source} Ω_p = ${fmt(it.patternSpeedKmsKpc, 1)} km/s/kpc`}.`,
+    `- Within complexes (bounded by the link radius, ${ciText(result.intraComplex.linkRadiusPc, 1)} pc): young stars ${fmt(result.intraComplex.medianAcrossKpc, 4)} kpc across from their own gas (n = ${result.intraComplex.n}).`,
     ...result.warnings.map((w) => `- Warning: ${w}`),
     '',
     'References',
-    '- ESA 1997, The Hipparcos and Tycho Catalogues, ESA SP-1200 (Galactic coordinates)',
-    '- Reid, M. J. et al. 2014, ApJ 783, 130 (arms, rotation curve); Reid, M. J. et al. 2019, ApJ 885, 131',
     '- Brand, J. & Blitz, L. 1993, A&A 275, 67; Persic, M., Salucci, P. & Stel, F. 1996, MNRAS 281, 27',
-    '- Schönrich, R., Binney, J. & Dehnen, W. 2010, MNRAS 403, 1829 (solar motion)',
-    '- Efron, B. & Tibshirani, R. J. 1993, An Introduction to the Bootstrap',
+    '- Reid, M. J. et al. 2014, ApJ 783, 130 (arms, rotation curve, Galactocentric frame); Reid, M. J. et al. 2019, ApJ 885, 131',
+    '- Egusa, F., Sofue, Y. & Nakanishi, H. 2004, PASJ 56, L45; Egusa, F. et al. 2009, ApJ 697, 1870',
+    '- Efron, B. & Tibshirani, R. J. 1993, An Introduction to the Bootstrap; Davison, A. C. & Hinkley, D. V. 1997, Bootstrap Methods and their Application',
     '',
   ];
   return lines.join('\n');

@@ -9,41 +9,47 @@
  * Lower weighted median of values[0 … n−1] with positive weights; reorders both arrays in place
  * (they stay paired). Returns NaN for n = 0.
  */
-export function weightedMedianInPlace(
-  values: Float64Array,
-  weights: Float64Array,
-  n: number,
-): number {
+export function weightedMedianInPlace(values: Float64Array, weights: Float64Array, n: number): number {
   if (n === 0) return NaN;
-  let total = 0;
-  for (let i = 0; i < n; i++) total += weights[i];
-  let half = total / 2;
+  let rangeWeight = 0;
+  for (let i = 0; i < n; i++) rangeWeight += weights[i];
+  let half = rangeWeight / 2;
   let lo = 0;
   let hi = n - 1;
-  for (;;) {
-    if (lo === hi) return values[lo];
-    const pivot = values[(lo + hi) >> 1];
-    // Three-way partition of [lo, hi] around the pivot: < pivot, = pivot, > pivot.
+  while (lo < hi) {
+    const a = values[lo];
+    const b = values[(lo + hi) >> 1];
+    const c = values[hi];
+    // Median of three as the pivot keeps sorted and reversed inputs linear.
+    const pivot = a < b ? (b < c ? b : a < c ? c : a) : a < c ? a : b < c ? c : b;
+    // Three-way partition of [lo, hi] (< pivot, = pivot, > pivot), summing weights on the way.
     let lt = lo;
     let gt = hi;
     let i = lo;
+    let below = 0;
+    let above = 0;
     while (i <= gt) {
       const v = values[i];
-      if (v < pivot) swap(values, weights, lt++, i++);
-      else if (v > pivot) swap(values, weights, i, gt--);
-      else i++;
+      if (v < pivot) {
+        below += weights[i];
+        swap(values, weights, lt++, i++);
+      } else if (v > pivot) {
+        above += weights[i];
+        swap(values, weights, i, gt--);
+      } else i++;
     }
-    let below = 0;
-    for (let k = lo; k < lt; k++) below += weights[k];
-    let equal = 0;
-    for (let k = lt; k <= gt; k++) equal += weights[k];
-    if (below >= half && lt > lo) hi = lt - 1;
-    else if (below + equal >= half) return pivot;
+    const equal = rangeWeight - below - above;
+    if (below >= half && lt > lo) {
+      hi = lt - 1;
+      rangeWeight = below;
+    } else if (below + equal >= half) return pivot;
     else {
       half -= below + equal;
       lo = gt + 1;
+      rangeWeight = above;
     }
   }
+  return values[lo];
 }
 
 function swap(v: Float64Array, w: Float64Array, a: number, b: number): void {

@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_CATALOGS } from '@/seed/demo-catalogs';
+import type { OrderingResult } from '@/lib/ordering';
 import { DEFAULT_MODEL, generateGalaxy, writeDemoFiles } from '@/seed/generator';
 import type { Client } from '../helpers/client';
 import { upload, waitForCatalog } from '../helpers/catalogs';
@@ -23,16 +24,16 @@ async function waitFor(client: Client, url: string, key: 'run' | 'analysis', tim
 
 /**
  * Injection–recovery through the whole product: the synthetic galaxy's files are uploaded and
- * mapped as a researcher would, linked by a link run, and analysed with the galaxy's own arms,
- * rotation curve and pattern speed. The generator puts young stars ≈ 1.4 pc downstream of the
- * gas inside each complex (6.5 pc along the orbit × sin 12.5°; seed/generator params).
+ * mapped as a researcher would, linked by a link run, and analysed with the galaxy's arms on the
+ * Reid et al. (2014) curve — not the generator's own curve — with no pattern speed given. The
+ * generator's truth (seed/generator, at the true positions) states the young-minus-gas offset.
  */
 describe('ordering analysis through the API', () => {
   let t: Team;
   let runId: string;
   const body = () => ({
     runId,
-    curve: { name: DEFAULT_MODEL.rotationCurve },
+    curve: { name: 'reid-2014' },
     arms: {
       custom: DEFAULT_MODEL.arms.map((a) => ({
         name: a.name,
@@ -43,15 +44,16 @@ describe('ordering analysis through the API', () => {
         betaMaxDeg: a.betaMaxDeg,
       })),
     },
-    patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
     resamples: 2000,
     seed: 3,
   });
 
+  const galaxy = generateGalaxy({ seed: 7, complexes: 600, interlopers: 0 });
+
   beforeAll(async () => {
     t = await makeTeam('ordering');
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lanewise-galaxy-'));
-    await writeDemoFiles(generateGalaxy({ seed: 7, complexes: 600, interlopers: 0 }), dir);
+    await writeDemoFiles(galaxy, dir);
     const ids: string[] = [];
     for (const c of DEMO_CATALOGS.filter((d) => d.kind !== 'hi')) {
       const up = await upload(t.editor, t.projectId, {
@@ -81,7 +83,7 @@ describe('ordering analysis through the API', () => {
     expect((await waitFor(t.editor, `/api/link-runs/${runId}`, 'run')).status).toBe('done');
   });
 
-  it('recovers the injected gas-to-young-star ordering with an interval that excludes zero', async () => {
+  it('recovers the injected ordering: young minus gas, tangents, fit and the intra-complex bound', async () => {
     const start = await t.editor.json<{ analysis: { id: string } }>(
       'POST',
       `/api/projects/${t.projectId}/analyses`,
@@ -92,25 +94,22 @@ describe('ordering analysis through the API', () => {
       t.viewer,
       `/api/analyses/${start.body.analysis.id}`,
       'analysis',
-    )) as unknown as {
-      status: string;
-      gasToStars: { n: number; medianAcrossKpc: number; ci95: [number, number]; pValue: number };
-      delayMyr: { median: number | null };
-      result: {
-        exclusions: { complexes: number; used: number; reasons: Record<string, number> };
-        warnings: string[];
-      };
-    };
+    )) as unknown as { status: string; result: OrderingResult };
     expect(a.status).toBe('done');
-    const g = a.gasToStars;
-    expect(g.n).toBeGreaterThan(30);
-    expect(g.ci95[0]).toBeGreaterThan(0);
-    expect(g.ci95[0]).toBeLessThanOrEqual(0.0014 * 1.5); // injected ≈ 1.4 pc (generator truth)
-    expect(g.ci95[1]).toBeGreaterThanOrEqual(0.0014 / 1.5);
-    expect(g.pValue).toBeLessThan(0.01);
-    expect(a.result.exclusions.used).toBeLessThanOrEqual(a.result.exclusions.complexes);
-    expect(a.result.exclusions.reasons['unreliable-longitude']).toBeGreaterThan(0);
-    expect(a.result.warnings.length).toBeGreaterThan(0);
+    const r = a.result;
+    const truth = galaxy.truth.ordering.youngMinusGasPerpKpc!; // generator truth at true positions
+    const [lo, hi] = r.youngMinusGas.ci95!;
+    expect(lo).toBeLessThanOrEqual(truth);
+    expect(hi).toBeGreaterThanOrEqual(truth);
+    expect(lo).toBeGreaterThan(0);
+    expect(r.headline[0]).toMatch(/ahead of the gas/);
+    expect(r.interpretation.source === 'assumed').toBe(false); // nothing was assumed
+    expect(r.tangents.length).toBeGreaterThan(0);
+    expect(r.patternFit !== null || r.patternFitReason !== null).toBe(true);
+    // 240″ at the complexes' distances: a few pc, against offsets of ~100 pc across the arm
+    expect(r.intraComplex.linkRadiusPc![1]).toBeLessThan(20);
+    expect(r.exclusions.reasons['unreliable-longitude']).toBeGreaterThan(0);
+    expect(r.warnings.length).toBeGreaterThan(0);
 
     const csv = await (
       await t.viewer.get(`/api/analyses/${start.body.analysis.id}/export.csv?table=complexes`)
@@ -122,9 +121,10 @@ describe('ordering analysis through the API', () => {
     expect(methods).toMatch(/Reid/);
     expect(methods).toMatch(/2000 resamples/);
     const list = await t.viewer.json<{
-      analyses: { id: string; summary: { pValue: number } | null }[];
+      analyses: { id: string; summary: { youngMinusGasKpc: number | null } | null }[];
     }>('GET', `/api/projects/${t.projectId}/analyses`);
     expect(list.body.analyses[0].id).toBe(start.body.analysis.id);
+    expect(list.body.analyses[0].summary!.youngMinusGasKpc).toBe(r.youngMinusGas.medianOffsetKpc);
   });
 
   it('lets viewers read but not start analyses or override distances', async () => {

@@ -39,7 +39,7 @@ describe('placement against the arm', () => {
     expect(row.RKpc).toBeCloseTo(p.R, 9); // lib/astro/galactocentric round trip
     expect(row.arm).toBe('Saltmarsh Arm');
     expect(row.used).toBe(true);
-    expect(row.gasToStarsAcrossKpc).toBeCloseTo(0, 9); // gas and stars coincide
+    expect(row.intraAcrossKpc).toBeCloseTo(0, 9); // gas and stars coincide
   });
 
   it('a complex 0.2 kpc ahead along the ridge normal has perpOffset +0.2 kpc', () => {
@@ -108,10 +108,9 @@ describe('gas→stars decomposition', () => {
     };
     const r = runOrderingAnalysis([cx], handSettings());
     const expected = S * Math.sin(12 * DEG); // across part of S ê_β for pitch 12° (log-spiral geometry)
-    expect(r.complexes[0].gasToStarsAcrossKpc!).toBeCloseTo(expected, 5); // first order in S/d
-    expect(r.gasToStars.n).toBe(1);
-    expect(r.gasToStars.medianAlongKpc!).toBeCloseTo(S * Math.cos(12 * DEG), 4); // along part, cos ψ (to ~0.1 %: S/d and the normal taken at the complex centre)
-    expect(r.delayMyr.median!).toBeGreaterThan(0); // stars ahead inside corotation: positive delay (SCIENCE.md §6)
+    expect(r.complexes[0].intraAcrossKpc!).toBeCloseTo(expected, 5); // first order in S/d
+    expect(r.intraComplex.n).toBe(1);
+    expect(r.intraComplex.medianAlongKpc!).toBeCloseTo(S * Math.cos(12 * DEG), 4); // along part, cos ψ (to ~0.1 %: S/d and the normal taken at the complex centre)
   });
 });
 
@@ -125,7 +124,7 @@ describe('distances and their choice', () => {
     const row = runOrderingAnalysis([cx], handSettings()).complexes[0];
     expect(row.choice).toBe('override');
     expect(row.distKpc).toBe(4.321); // the override itself
-    expect(row.distLoKpc).toBeNull();
+    expect(row.distLoKpc).toBe(4.321); // every draw is the override: no spread
     expect(row.reason).toContain('maser parallax');
   });
 
@@ -139,13 +138,15 @@ describe('distances and their choice', () => {
     });
     const r = runOrderingAnalysis(
       [mk('n', near + 0.2), mk('f', far - 0.3)],
-      handSettings({ armWidthKpc: 50 }),
+      handSettings({ armWidthKpc: 50, mcDraws: 2000 }),
     );
     expect(r.complexes[0].choice).toBe('near');
-    expect(r.complexes[0].distKpc).toBeCloseTo(near, 6); // lib/astro/kinematic-distance (bulk and single solvers agree to 1e-10)
-    expect(r.complexes[0].reason).toMatch(/independent distance .* closer to the near root/);
+    expect(r.complexes[0].pNear!).toBeGreaterThan(0.99); // likelihood ratio of N(d_ind; d, 0.3²) at the two roots
+    // the median of the draws is the root of the median velocity (a monotonic map), to sampling error
+    expect(r.complexes[0].distKpc!).toBeCloseTo(near, 1);
     expect(r.complexes[1].choice).toBe('far');
-    expect(r.complexes[1].distKpc).toBeCloseTo(far, 6);
+    expect(r.complexes[1].pNear!).toBeLessThan(0.01);
+    expect(r.complexes[1].distKpc!).toBeCloseTo(far, 1);
     expect(r.complexes[0].distLoKpc!).toBeLessThan(r.complexes[0].distHiKpc!);
   });
 
@@ -154,17 +155,26 @@ describe('distances and their choice', () => {
       id: 'gc',
       members: [memberSeen('co', 5, 0, 20), memberSeen('ob', 5, 0, 20, 3.1, 0.2)],
     };
-    const row = runOrderingAnalysis([cx], handSettings({ armWidthKpc: 50 })).complexes[0];
+    const row = runOrderingAnalysis([cx], handSettings({ armWidthKpc: 50, mcDraws: 2000 }))
+      .complexes[0];
     expect(row.choice).toBe('independent');
-    expect(row.distKpc).toBeCloseTo(3.1, 12); // the member's own distance
+    expect(row.distKpc!).toBeCloseTo(3.1, 1); // the member's own distance, drawn with its 0.2 kpc error
+    expect(row.distHiKpc! - row.distLoKpc!).toBeCloseTo(0.4, 1); // 68 % interval of N(3.1, 0.2²)
     expect(row.excludedBecause).toBeNull();
   });
 
   it('latitude decides near when the far root would lie far out of the plane', () => {
     const cx: OrderingComplex = { id: 'high', members: [memberSeen('co', 30, 1.5, 60)] };
-    const row = runOrderingAnalysis([cx], handSettings({ armWidthKpc: 50 })).complexes[0];
-    // far root ≈ 10.4 kpc → |z| ≈ 0.27 kpc > 2.5 × 0.06 kpc (SCIENCE.md §4 latitude rule)
-    expect(row.choice).toBe('near');
+    // far root ≈ 10.4 kpc → |z| ≈ 0.27 kpc > 2.5 × 0.06 kpc: the latitude rule (common practice)
+    const latitude = runOrderingAnalysis(
+      [cx],
+      handSettings({ armWidthKpc: 50, nearFar: 'latitude' }),
+    );
+    expect(latitude.complexes[0].choice).toBe('near');
+    expect(latitude.complexes[0].pNear).toBe(1);
+    // and the probabilistic rule: w ∝ d² exp(−z²/2h²) puts all but a vanishing weight on near
+    const probable = runOrderingAnalysis([cx], handSettings({ armWidthKpc: 50 }));
+    expect(probable.complexes[0].pNear!).toBeGreaterThan(0.99);
   });
 
   it('falls back to all members for the velocity when no gas member has one, and says so', () => {
@@ -175,7 +185,6 @@ describe('distances and their choice', () => {
     const r = runOrderingAnalysis([cx], handSettings({ armWidthKpc: 50 }));
     expect(r.complexes[0].choice).toBe('single'); // outer Galaxy: one root
     expect(r.complexes[0].vLsrKms).toBe(-40);
-    expect(r.complexes[0].reason).toContain('no gas member has a velocity');
     expect(r.warnings.join(' ')).toMatch(/1 of 1 complex have no gas member with a velocity/);
   });
 });
@@ -189,7 +198,9 @@ describe('exclusions', () => {
       { id: 'no-v', members: [memberSeen('co', 40, 0, NaN)] },
       // flat curve at l = 30°: terminal velocity Θ0 (1 − sin l) = 110 km/s (SCIENCE.md §4)
       { id: 'beyond', members: [memberSeen('co', 30, 0, 130)] },
-      { id: 'tangent-ish', members: [memberSeen('co', 30, 0, 106)] },
+      // 2 km/s below it: the roots lie closer than σ_v = √(1² + 7²) km/s can separate
+      // (half-separation × |dv/dd| = 2 (v_t − v) for a parabolic peak; exact geometry)
+      { id: 'tangent-ish', members: [memberSeen('co', 30, 0, 108)] },
       // second quadrant, positive velocity: forbidden for circular rotation
       { id: 'forbidden', members: [memberSeen('co', 120, 0, 50)] },
       { id: 'ambiguous', members: [memberSeen('co', 30, 0, 60)] },
@@ -204,7 +215,7 @@ describe('exclusions', () => {
         distanceOverride: overrideAt(p.xKpc, p.yKpc),
       },
     ];
-    const r = runOrderingAnalysis(complexes, handSettings());
+    const r = runOrderingAnalysis(complexes, handSettings({ nearFar: 'latitude' }));
     expect(r.exclusions).toEqual({
       complexes: 8,
       used: 1,
@@ -230,7 +241,6 @@ describe('exclusions', () => {
     ]);
     expect(r.complexes[2].choice).toBe('tangent');
     expect(r.complexes[2].flags).toContain('beyond-terminal');
-    expect(r.complexes[0].flags).toContain('within-15deg-of-l0-or-l180');
     expect(r.warnings).toContain(
       '1 of 8 complexes left out: kinematic distance within 15° of l = 0° or 180°, where it is unreliable.',
     );
@@ -262,5 +272,72 @@ describe('exclusions', () => {
     );
     expect(seen[seen.length - 1]).toBe(1);
     expect(seen.every((f, i) => i === 0 || f >= seen[i - 1])).toBe(true);
+  });
+});
+
+describe('measurements do not depend on the model they test', () => {
+  /** Complexes on both sides of TEST_ARM's ridge, gas behind and young stars ahead. */
+  function twoSided(): OrderingComplex[] {
+    const out: OrderingComplex[] = [];
+    const psi = TEST_ARM.pitchDeg * DEG;
+    for (let k = 0; k < 40; k++) {
+      const beta = 10 + 2 * k;
+      const p = ridge(beta);
+      const a = axes(beta);
+      const nx = Math.cos(psi) * a.rx + Math.sin(psi) * a.ax;
+      const ny = Math.cos(psi) * a.ry + Math.sin(psi) * a.ay;
+      const shift = k % 2 === 0 ? -0.15 : 0.15;
+      const x = p.xKpc + shift * nx;
+      const y = p.yKpc + shift * ny;
+      out.push({
+        id: `c${k}`,
+        members: [memberAt(k % 2 === 0 ? 'co' : 'hii', x, y)],
+        distanceOverride: overrideAt(x, y),
+      });
+    }
+    return out;
+  }
+
+  it('class offsets are measured in the sense of rotation, whatever pattern speed is stated', () => {
+    const a = runOrderingAnalysis(twoSided(), handSettings({ patternSpeedKmsKpc: 15 }));
+    const b = runOrderingAnalysis(twoSided(), handSettings({ patternSpeedKmsKpc: 30 }));
+    const none = runOrderingAnalysis(twoSided(), handSettings());
+    expect(a.classes).toEqual(b.classes); // the measurement ignores the assumption
+    expect(a.youngMinusGas).toEqual(none.youngMinusGas);
+    const co = a.classes.find((c) => c.kind === 'co')!;
+    const hii = a.classes.find((c) => c.kind === 'hii')!;
+    expect(co.medianOffsetKpc!).toBeCloseTo(-0.15, 3); // placed 150 pc behind the ridge by construction
+    expect(hii.medianOffsetKpc!).toBeCloseTo(0.15, 3); // and 150 pc ahead
+    expect(a.youngMinusGas.medianOffsetKpc!).toBeCloseTo(0.3, 3);
+    // only the interpretation uses it, and says it is assumed
+    expect(a.interpretation).toMatchObject({ source: 'assumed', patternSpeedKmsKpc: 15 });
+    expect(none.interpretation.source).toBeNull();
+    expect(a.headline.join(' ')).toMatch(/assumed \(not fitted\) pattern speed/);
+  });
+
+  it('carries the curve constants into the distance intervals', { timeout: 60_000 }, () => {
+    const cx: OrderingComplex[] = [{ id: 'a', members: [memberSeen('co', 40, 0, -30)] }];
+    const without = runOrderingAnalysis(cx, handSettings({ armWidthKpc: 50, mcDraws: 1000 }));
+    const withErr = runOrderingAnalysis(
+      cx,
+      handSettings({ armWidthKpc: 50, mcDraws: 1000, R0ErrKpc: 0.4, theta0ErrKms: 15 }),
+    );
+    const width = (r: typeof without) => r.complexes[0].distHiKpc! - r.complexes[0].distLoKpc!;
+    expect(width(withErr)).toBeGreaterThan(1.2 * width(without)); // R0 and Θ0 errors add spread
+    expect(without.warnings.join(' ')).toMatch(/carry no uncertainty/);
+  });
+
+  it('states the link radius in pc beside the intra-complex offset', () => {
+    const p = ridge(30);
+    const cx: OrderingComplex = {
+      id: 'pair',
+      members: [memberAt('co', p.xKpc, p.yKpc), memberAt('hii', p.xKpc + 0.001, p.yKpc)],
+      distanceOverride: overrideAt(p.xKpc, p.yKpc),
+    };
+    const r = runOrderingAnalysis([cx], handSettings({ linkRadiusArcsec: [60, 60] }));
+    const d = overrideAt(p.xKpc, p.yKpc).distKpc;
+    const pc = 60 * (Math.PI / 180 / 3600) * d * 1000; // small-angle arc length (exact geometry)
+    expect(r.intraComplex.linkRadiusPc![0]).toBeCloseTo(pc, 9);
+    expect(r.headline.join(' ')).not.toMatch(/own parent|within complexes/i); // not in the headline
   });
 });

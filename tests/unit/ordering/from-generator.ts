@@ -3,9 +3,8 @@
  * complex, with the observed l, b, v, velocity error and independent distance of each member as
  * the catalogs hold them, and settings taken from the galaxy's truth (curve, arms, pattern speed).
  */
-import { makeRotationCurve, type RotationCurveName } from '@/lib/astro/rotation-curves';
 import type { OrderingComplex, OrderingSettings, TracerKind } from '@/lib/ordering';
-import { TRACERS, type DemoGalaxy } from '@/seed/generator';
+import { galaxyCurve, TRACERS, type DemoGalaxy } from '@/seed/generator';
 
 const KIND: Record<(typeof TRACERS)[number], TracerKind> = {
   HI: 'hi',
@@ -48,23 +47,31 @@ export function complexesFromGalaxy(galaxy: DemoGalaxy): {
   return { complexes, refs };
 }
 
-/** Settings that use the galaxy's own curve, arms and pattern speed (the truth), and SCIENCE.md defaults. */
+/**
+ * Settings that use the galaxy's own curve (rebuilt from its truth) and arms, with the analysis
+ * defaults: no stated pattern speed, probabilistic near/far, no error on the curve constants.
+ */
 export function settingsFromGalaxy(
   galaxy: DemoGalaxy,
   overrides: Partial<OrderingSettings> = {},
 ): OrderingSettings {
   const { truth } = galaxy;
   return {
-    curve: makeRotationCurve(truth.rotationCurve.name as RotationCurveName),
+    curve: galaxyCurve(truth),
     arms: truth.arms,
     armWidthKpc: 1.0,
-    patternSpeedKmsKpc: truth.patternSpeedKmsKpc,
+    patternSpeedKmsKpc: null,
     sigmaStreamKms: 7,
+    R0ErrKpc: 0,
+    theta0ErrKms: 0,
     scaleHeightKpc: 0.06,
+    nearFar: 'probabilistic',
     velocityFrom: 'gas',
     resamples: 2000,
     seed: 7,
     mcDraws: 200,
+    armsR0Kpc: null,
+    linkRadiusArcsec: null,
     ...overrides,
   };
 }

@@ -8,7 +8,7 @@ import { vLsrAtKms } from '@/lib/astro/kinematic-distance';
 import { makeRotationCurve } from '@/lib/astro/rotation-curves';
 import type { OrderingMember, OrderingSettings, TracerKind } from '@/lib/ordering';
 
-/** Flat curve, R0 = 8.5 kpc, Θ0 = 220 km/s (IAU 1985 values, as in SCIENCE.md §4). */
+/** Flat curve, R0 = 8.5 kpc, Θ0 = 220 km/s (IAU 1985 values; Kerr & Lynden-Bell 1986). */
 export const FLAT = makeRotationCurve('flat');
 
 /** An invented trailing log-spiral arm of pitch 12°. */
@@ -21,19 +21,24 @@ export const TEST_ARM: ArmSpec = {
   betaMaxDeg: 120,
 };
 
-/** Settings for hand-made inputs (SCIENCE.md defaults; pattern speed low enough that R < corotation everywhere here). */
+/** Settings for hand-made inputs: the analysis defaults, no stated pattern speed, no constant errors. */
 export function handSettings(overrides: Partial<OrderingSettings> = {}): OrderingSettings {
   return {
     curve: FLAT,
     arms: [TEST_ARM],
     armWidthKpc: 1,
-    patternSpeedKmsKpc: 10,
+    patternSpeedKmsKpc: null,
     sigmaStreamKms: 7,
+    R0ErrKpc: 0,
+    theta0ErrKms: 0,
     scaleHeightKpc: 0.06,
+    nearFar: 'probabilistic',
     velocityFrom: 'gas',
     resamples: 2000,
     seed: 1,
     mcDraws: 200,
+    armsR0Kpc: null,
+    linkRadiusArcsec: null,
     ...overrides,
   };
 }

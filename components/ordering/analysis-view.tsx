@@ -95,9 +95,9 @@ function InterpretationLine({ result }: { result: OrderingResult }) {
         : 'no used complex has a radius';
     const reading =
       it.predictedSign === 1
-        ? 'there, gas flows into the arm from behind, so downstream is ahead in rotation and young stars formed from it should lie ahead of the gas'
+        ? 'inside corotation the gas overtakes the arm and enters it from behind, so downstream is ahead in rotation and young stars formed there should lie ahead of their gas'
         : it.predictedSign === -1
-          ? 'there, the arm overtakes the gas, so downstream is behind in rotation and young stars formed from it should lie behind the gas'
+          ? 'outside corotation the arm overtakes the gas, so downstream is behind in rotation and young stars formed there should lie behind their gas'
           : 'the complexes lie on both sides of corotation, where downstream points opposite ways, so no single sign is predicted for the whole field';
     text = `Ω_p = ${fmt(it.patternSpeedKmsKpc, 1)} km/s/kpc (${cr}): ${share}; ${reading}.`;
   }
@@ -263,7 +263,11 @@ function Exports({ analysisId }: { analysisId: string }) {
       'Complexes',
       'one row per complex: distance and its choice, arm, offsets, used or why not',
     ],
-    ['classes', 'Classes', 'one row per tracer class: n, median and mean offsets with intervals'],
+    [
+      'classes',
+      'Classes',
+      'one row per tracer class, overall and per arm: n, median offsets across and in azimuth with intervals',
+    ],
     ['sources', 'Sources', 'one row per member placed at its complex’s distance, with its offset'],
   ] as const;
   return (

@@ -21,7 +21,7 @@ const drainJobs = () => runWorker({ once: true });
 async function seedCatalogs(projectId: string, editorId: string) {
   const dir = path.resolve(env().LANEWISE_DATA_DIR, 'demo-source');
   if (!fs.existsSync(path.join(dir, 'truth.json'))) {
-    const galaxy = generateGalaxy({ seed: 7, complexes: 300, interlopers: 200 });
+    const galaxy = generateGalaxy({ seed: 7, complexes: 800, interlopers: 300 });
     fs.mkdirSync(dir, { recursive: true });
     await writeDemoFiles(galaxy, dir);
   }
@@ -90,9 +90,14 @@ async function seedRun(projectId: string, editorId: string) {
   return run.id;
 }
 
-/** The demo galaxy's own curve, arms and pattern speed, as the owner would save them. */
+/**
+ * The demo's ordering settings, as the owner would save them: the demo galaxy's arms, but the
+ * Reid et al. (2014) curve with its published R0 and Θ0 uncertainties instead of the curve the
+ * galaxy was made with (R0 8.2 kpc, Θ0 236 km/s, an arctangent rise), and no pattern speed: the
+ * analysis fits it. So the demo shows what is recoverable with a realistic mismatch.
+ */
 const demoOrdering = () => ({
-  curve: { name: DEFAULT_MODEL.rotationCurve },
+  curve: { name: 'reid-2014' as const },
   arms: {
     custom: DEFAULT_MODEL.arms.map((a) => ({
       name: a.name,
@@ -103,7 +108,7 @@ const demoOrdering = () => ({
       betaMaxDeg: a.betaMaxDeg,
     })),
   },
-  patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
+  nearFar: 'probabilistic' as const,
   armWidthKpc: 1,
   sigmaStreamKms: 7,
   scaleHeightKpc: 0.06,

@@ -78,26 +78,30 @@ export function nestedReplicates(
   const usable = usableDraws(m);
   const rng = makeRng(seed);
   const mult = new Int32Array(n);
-  const chosen = new Int32Array(n);
+  // Per resample, each drawn complex's value in every matrix, gathered once: groups then read
+  // these dense columns instead of the n × D matrices.
+  const picked = m.values.map(() => new Float64Array(n));
   const out = groups.map(() => new Float64Array(resamples));
   const largest = groups.reduce((s, g) => Math.max(s, g.complexes.length), 0);
   const vals = new Float64Array(largest);
   const wts = new Float64Array(largest);
   const u = universe.length;
+  const first = m.values[0];
   for (let r = 0; r < resamples; r++) {
     for (let k = 0; k < u; k++) mult[universe[rng.int(u)]]++;
     const j = rng.int(D);
     for (let k = 0; k < u; k++) {
       const c = universe[k];
       if (mult[c] === 0) continue;
-      const own = m.values[0][c * D + j];
+      const own = first[c * D + j];
       const s = usable.start[c];
       const len = usable.start[c + 1] - s;
-      chosen[c] = own === own || len === 0 ? j : usable.index[s + rng.int(len)];
+      const draw = own === own || len === 0 ? j : usable.index[s + rng.int(len)];
+      for (let q = 0; q < picked.length; q++) picked[q][c] = m.values[q][c * D + draw];
     }
     for (let gi = 0; gi < groups.length; gi++) {
       const g = groups[gi];
-      const v = m.values[g.matrix];
+      const v = picked[g.matrix];
       const cs = g.complexes;
       const ws = g.weights;
       let size = 0;
@@ -105,7 +109,7 @@ export function nestedReplicates(
         const c = cs[i];
         const w = mult[c];
         if (w === 0) continue;
-        const x = v[c * D + chosen[c]];
+        const x = v[c];
         if (!(x === x)) continue;
         vals[size] = x;
         wts[size++] = w * ws[i];

@@ -102,7 +102,6 @@ export function ridgeNormals(
   yKpc: Float64Array,
   armOf: Int32Array,
   arms: ArmSpec[],
-  R0Kpc: number,
 ): { normalX: Float64Array; normalY: Float64Array } {
   const n = xKpc.length;
   const h = NORMAL_STEP_KPC;
@@ -154,6 +153,6 @@ export function placeComplexes(
       withinRange[i] = r.withinRange[k];
     }
   }
-  const normals = ridgeNormals(pos.xKpc, pos.yKpc, armIndex, arms, R0Kpc);
+  const normals = ridgeNormals(pos.xKpc, pos.yKpc, armIndex, arms);
   return { ...pos, armIndex, perpOffsetKpc, azimuthOffsetDeg, withinRange, ...normals };
 }

@@ -53,3 +53,72 @@ export const analysisSchema = z.object({
 
 /** A parsed analysis request. */
 export type AnalysisParams = z.infer<typeof analysisSchema>;
+
+const tracerKind = z.enum(['hi', 'co', 'hii', 'ob', 'other']);
+
+/** A galaxy seen from outside: where it is, how its disc lies, how it rotates (API.md). */
+export const externalGalaxySchema = z.object({
+  centerRaDeg: z.number().min(0).lt(360),
+  centerDecDeg: z.number().min(-90).max(90),
+  distanceMpc: z.number().positive().max(1000),
+  inclinationDeg: z.number().min(0).max(85, 'Inclinations above 85° cannot be deprojected.'),
+  /** Position angle of the receding major axis, east of north. */
+  positionAngleDeg: z.number().min(0).lt(360),
+  rotation: z.enum(['counterclockwise', 'clockwise', 'trailing-arms']),
+  rotationCurve: z.union([
+    z.object({ kind: z.literal('flat'), vKms: z.number().positive().max(1000) }),
+    z.object({
+      kind: z.literal('table'),
+      points: z
+        .array(z.tuple([z.number().positive(), z.number().positive()]))
+        .min(2, 'Give at least two (R, V) rows.')
+        .max(500),
+    }),
+  ]),
+  systemicVelocityKms: z.number().min(-1000).max(30_000).optional(),
+});
+
+/** A project's target: the Milky Way, or one external galaxy (kept in the project's settings). */
+export const projectTargetSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('milky-way') }),
+  z.object({
+    kind: z.literal('external-galaxy'),
+    name: z.string().trim().max(100).optional(),
+    galaxy: externalGalaxySchema,
+  }),
+]);
+
+/** The external-galaxy analysis body of the API (`galaxy` may come from the project's target). */
+export const externalAnalysisSchema = z
+  .object({
+    kind: z.literal('external-galaxy'),
+    catalogIds: z.array(z.string().min(1)).min(1).max(20).optional(),
+    runId: z.string().min(1).optional(),
+    galaxy: externalGalaxySchema.optional(),
+    arms: z.number().int().min(1).max(8).default(2),
+    rings: z
+      .object({
+        minKpc: z.number().min(0).max(100),
+        maxKpc: z.number().positive().max(100),
+        widthKpc: z.number().positive().max(20),
+      })
+      .refine((r) => r.maxKpc > r.minKpc, 'rings.maxKpc must exceed rings.minKpc.'),
+    gasKinds: z.array(tracerKind).min(1).optional(),
+    youngKinds: z.array(tracerKind).min(1).optional(),
+    resamples: z
+      .number()
+      .int()
+      .min(2000, 'Use at least 2 000 resamples.')
+      .max(20_000)
+      .default(2000),
+    seed: z.number().int().default(1),
+  })
+  .refine((b) => (b.catalogIds === undefined) !== (b.runId === undefined), {
+    message: 'Give either catalogIds or runId.',
+  });
+
+/** Either analysis body: `kind` picks the Milky-Way or the external-galaxy analysis. */
+export const anyAnalysisSchema = z.union([analysisSchema, externalAnalysisSchema]);
+
+export type ExternalAnalysisParams = z.infer<typeof externalAnalysisSchema>;
+export type ProjectTarget = z.infer<typeof projectTargetSchema>;

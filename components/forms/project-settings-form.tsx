@@ -10,9 +10,12 @@ import { ErrorNote, Panel } from '@/components/ui/panel';
 export function ProjectSettingsForm({
   project,
   canEdit,
+  children,
 }: {
   project: { id: string; name: string; description: string };
   canEdit: boolean;
+  /** Sections shown between the project's name and its removal. */
+  children?: React.ReactNode;
 }) {
   const router = useRouter();
   const [form, setForm] = useState({ name: project.name, description: project.description });
@@ -54,6 +57,7 @@ export function ProjectSettingsForm({
           {saved && <span className="ml-3 text-sm text-ok">Saved.</span>}
         </form>
       </Panel>
+      {children}
       {canEdit && (
         <Panel title="Delete the project">
           <p className="mb-3 text-sm text-ink-soft">

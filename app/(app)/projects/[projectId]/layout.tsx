@@ -1,3 +1,4 @@
+import { projectTarget } from '@/components/external/target';
 import { ProjectNav } from '@/components/project-nav';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { getProject } from '@/lib/services/projects';
@@ -14,7 +15,11 @@ export default async function ProjectLayout({
   const project = await getProject(projectId, role);
   return (
     <>
-      <ProjectNav projectId={projectId} projectName={project.name} />
+      <ProjectNav
+        projectId={projectId}
+        projectName={project.name}
+        target={projectTarget(project.settings)}
+      />
       <main className="min-w-0 flex-1 px-8 py-7">{children}</main>
     </>
   );

@@ -1,3 +1,4 @@
+import { TargetSettings } from '@/components/external/target-settings';
 import { ProjectSettingsForm } from '@/components/forms/project-settings-form';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
@@ -13,14 +14,20 @@ export default async function SettingsPage({ params }: { params: Promise<{ proje
         title="Settings"
         lead={
           role === 'owner'
-            ? 'Name, description and removal of the project.'
+            ? 'Name, description, target (the Milky Way or an external galaxy) and removal of the project.'
             : 'Only owners change these settings.'
         }
       />
       <ProjectSettingsForm
         project={{ id: project.id, name: project.name, description: project.description ?? '' }}
         canEdit={role === 'owner'}
-      />
+      >
+        <TargetSettings
+          projectId={project.id}
+          savedTarget={project.settings.target}
+          canEdit={role === 'owner'}
+        />
+      </ProjectSettingsForm>
     </>
   );
 }

@@ -2,6 +2,7 @@
  * Plain-words warnings with counts for an ordering result: what was left out and why, and where
  * a number rests on little data or leaves an error out (warn, don't hide).
  */
+import { r0Mismatch } from '@/lib/astro/arm-rescale';
 import { EXCLUSION_REASONS, EXCLUSION_WORDS, type ExclusionReason } from './exclusions';
 
 /** Statistics over fewer complexes than this get a warning that their intervals are fragile. */
@@ -51,9 +52,7 @@ export function warningsFor(w: WarningCounts): string[] {
     out.push(
       "The rotation curve's R0 and Θ0 carry no uncertainty in this analysis (the preset states none and none was given), so the intervals leave the Galactic constants out.",
     );
-  if (w.armsR0Kpc !== null && Math.abs(w.armsR0Kpc - w.curveR0Kpc) > 0.005)
-    out.push(
-      `The arms were fitted with R0 = ${w.armsR0Kpc} kpc and the curve uses R0 = ${w.curveR0Kpc} kpc: positions shift by about ${Math.round(Math.abs(w.armsR0Kpc - w.curveR0Kpc) * 1000)} pc near the Sun against the arms; rescale the arms or use one R0.`,
-    );
+  const mismatch = w.armsR0Kpc === null ? null : r0Mismatch(w.armsR0Kpc, w.curveR0Kpc);
+  if (mismatch) out.push(mismatch.warning);
   return out;
 }

@@ -31,7 +31,11 @@ export const analysisSchema = z.object({
     theta0Err: z.number().min(0).max(50).optional(),
   }),
   arms: z.union([
-    z.object({ preset: z.string().min(1) }),
+    z.object({
+      preset: z.string().min(1),
+      /** Scale the preset's radii from the R0 it was fitted with to the curve's R0. */
+      rescaleToCurveR0: z.boolean().optional(),
+    }),
     z.object({ custom: z.array(customArmSchema).min(1, 'Give at least one arm.').max(12) }),
   ]),
   /** A pattern speed the user assumes (km/s/kpc); optional, used only where labelled so. */

@@ -204,7 +204,7 @@ export function runOrderingAnalysis(
     curve,
     {
       ...TANGENT_DEFAULTS,
-      nearTerminalKms: null,
+      nearTerminalKms: settings.tangentNearTerminalKms,
       resamples,
       seed: deriveSeed(seed, SEED.tangents),
       patternSpeedKmsKpc: interpretation.patternSpeedKmsKpc,

@@ -59,6 +59,8 @@ export type OrderingSettings = {
   mcDraws: number;
   /** R0 (kpc) the arm model was fitted with, to warn when the curve uses another; null = unknown. */
   armsR0Kpc: number | null;
+  /** Tangent-point method: keep only sources within this many km/s of the terminal velocity; null = all. */
+  tangentNearTerminalKms: number | null;
   /** The link run's radius (arcsec, smallest and largest), to state the intra-complex bound in pc. */
   linkRadiusArcsec: [number, number] | null;
 };

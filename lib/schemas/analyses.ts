@@ -53,6 +53,8 @@ export const analysisSchema = z.object({
   scaleHeightKpc: z.number().positive().max(2).default(0.06),
   velocityFrom: z.enum(['gas', 'all']).default('gas'),
   mcDraws: z.number().int().min(50).max(5000).default(200),
+  /** Tangent-point method: only sources within this many km/s of the terminal velocity. */
+  tangentNearTerminalKms: z.number().positive().max(200).nullable().optional(),
 });
 
 /** A parsed analysis request. */

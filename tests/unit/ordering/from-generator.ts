@@ -71,6 +71,7 @@ export function settingsFromGalaxy(
     seed: 7,
     mcDraws: 200,
     armsR0Kpc: null,
+    tangentNearTerminalKms: null,
     linkRadiusArcsec: null,
     ...overrides,
   };

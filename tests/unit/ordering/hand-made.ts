@@ -38,6 +38,7 @@ export function handSettings(overrides: Partial<OrderingSettings> = {}): Orderin
     seed: 1,
     mcDraws: 200,
     armsR0Kpc: null,
+    tangentNearTerminalKms: null,
     linkRadiusArcsec: null,
     ...overrides,
   };

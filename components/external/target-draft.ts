@@ -56,6 +56,9 @@ const BLANK: TargetDraft = {
   systemicVelocityKms: '',
 };
 
+/** A saved number as the form shows it: 12 significant digits hide the binary tail of a parsed sexagesimal angle. */
+const shown = (x: number) => String(Number(x.toPrecision(12)));
+
 /** The draft of a saved target; an absent or unreadable one is the Milky Way. */
 export function draftFromTarget(saved: unknown): TargetDraft {
   const parsed = projectTargetSchema.safeParse(saved);
@@ -65,16 +68,16 @@ export function draftFromTarget(saved: unknown): TargetDraft {
   return {
     kind: 'external-galaxy',
     name: name ?? '',
-    centerRa: String(g.centerRaDeg),
-    centerDec: String(g.centerDecDeg),
-    distanceMpc: String(g.distanceMpc),
-    inclinationDeg: String(g.inclinationDeg),
-    positionAngleDeg: String(g.positionAngleDeg),
+    centerRa: shown(g.centerRaDeg),
+    centerDec: shown(g.centerDecDeg),
+    distanceMpc: shown(g.distanceMpc),
+    inclinationDeg: shown(g.inclinationDeg),
+    positionAngleDeg: shown(g.positionAngleDeg),
     rotation: g.rotation,
     curveKind: curve.kind,
-    vFlatKms: curve.kind === 'flat' ? String(curve.vKms) : '',
+    vFlatKms: curve.kind === 'flat' ? shown(curve.vKms) : '',
     curveTable: curve.kind === 'table' ? curve.points.map(([R, V]) => `${R} ${V}`).join('\n') : '',
-    systemicVelocityKms: g.systemicVelocityKms === undefined ? '' : String(g.systemicVelocityKms),
+    systemicVelocityKms: g.systemicVelocityKms === undefined ? '' : shown(g.systemicVelocityKms),
   };
 }
 

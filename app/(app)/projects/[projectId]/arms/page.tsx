@@ -1,7 +1,10 @@
+import { ExternalWorkspace } from '@/components/external/external-workspace';
+import { projectTarget } from '@/components/external/target';
 import { OrderingWorkspace } from '@/components/ordering/ordering-workspace';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
+import { getProject } from '@/lib/services/projects';
 
 export default async function ArmsPage({
   params,
@@ -13,6 +16,23 @@ export default async function ArmsPage({
   const { projectId } = await params;
   const { analysis } = await searchParams;
   const { role } = await pageProjectRole(projectId);
+  const target = projectTarget((await getProject(projectId, role)).settings);
+  const analysisId = typeof analysis === 'string' && analysis ? analysis : null;
+  if (target.kind === 'external-galaxy')
+    return (
+      <>
+        <PageHeader
+          title="Arms & ordering"
+          lead={`Deproject the sources of ${target.name || 'the galaxy'} into its disc and measure, ring by ring, the azimuthal offset of young stars from gas in the sense of rotation; fit Δφ(R) = 1.0227·10⁻³ (Ω(R) − Ω_p) t for the pattern speed and the timescale, with a null test for whether any offset is there at all.`}
+        />
+        <ExternalWorkspace
+          projectId={projectId}
+          target={target}
+          canEdit={roleAtLeast(role, 'editor')}
+          analysisId={analysisId}
+        />
+      </>
+    );
   return (
     <>
       <PageHeader
@@ -23,7 +43,7 @@ export default async function ArmsPage({
         projectId={projectId}
         canEdit={roleAtLeast(role, 'editor')}
         isOwner={role === 'owner'}
-        analysisId={typeof analysis === 'string' && analysis ? analysis : null}
+        analysisId={analysisId}
       />
     </>
   );

@@ -1,0 +1,164 @@
+'use client';
+
+import { useMemo } from 'react';
+import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
+import { fmt } from '@/components/link-runs/format';
+import { ZoomFigure, type Domain, type HoverTarget } from '@/components/ordering/zoom-figure';
+import { GAS, YOUNG, ringEdgesKpc } from '@/lib/external/ring-offsets';
+import type { LogSpiralArms, RingSpec } from '@/lib/external/types';
+import { markerPath } from '@/lib/tracers';
+import { armRidgesXY, type ClassMark } from './figure-model';
+import { column, type ExternalResultJson } from './types';
+
+const SIZE = 620;
+const MARGIN = { left: 58, right: 14, top: 14, bottom: 44 };
+
+export const DISC_MAP_TITLE = 'Deprojected face-on map of the disc';
+
+/**
+ * The sources deprojected into the galaxy's disc (x along the receding major axis, azimuth
+ * counterclockwise in the sense of rotation, kpc), gas and young stars by colour and shape, the
+ * ring edges of the analysis, and the arm ridges it used (fitted or entered) over the rings.
+ */
+export function DiscMap({
+  result,
+  rings,
+  marks,
+  fileStem,
+}: {
+  result: ExternalResultJson;
+  rings: RingSpec;
+  marks: { gas: ClassMark; young: ClassMark };
+  fileStem: string;
+}) {
+  const points = useMemo(() => {
+    const R = column(result.sources.RKpc);
+    const phi = column(result.sources.phiDeg);
+    const code = column(result.sources.classCode);
+    return R.map((r, i) => ({
+      x: r * Math.cos((phi[i] * Math.PI) / 180),
+      y: r * Math.sin((phi[i] * Math.PI) / 180),
+      R: r,
+      phiDeg: phi[i],
+      code: code[i],
+    }));
+  }, [result.sources]);
+  const arms: LogSpiralArms | null = result.armModel;
+  const ridges = useMemo(
+    () => (arms ? armRidgesXY(arms, rings.minKpc, rings.maxKpc) : []),
+    [arms, rings],
+  );
+  const edges = useMemo(() => Array.from(ringEdgesKpc(rings)), [rings]);
+  const domain = useMemo<Domain>(() => {
+    const ext = Math.ceil(rings.maxKpc * 1.1);
+    const w = SIZE - MARGIN.left - MARGIN.right;
+    const h = SIZE - MARGIN.top - MARGIN.bottom;
+    // Equal kpc per pixel on both axes.
+    return { x0: -ext, x1: ext, y0: (-ext * h) / w, y1: (ext * h) / w };
+  }, [rings.maxKpc]);
+  const targets = useMemo<HoverTarget[]>(
+    () =>
+      points.map((p) => ({
+        x: p.x,
+        y: p.y,
+        text: `${p.code === GAS ? marks.gas.label : p.code === YOUNG ? marks.young.label : 'other class'} at R ${fmt(p.R, 2)} kpc, φ ${fmt(p.phiDeg, 1)}°`,
+      })),
+    [points, marks],
+  );
+  const markOf = (code: number) =>
+    code === GAS ? marks.gas.style : code === YOUNG ? marks.young.style : null;
+
+  return (
+    <ZoomFigure
+      title={DISC_MAP_TITLE}
+      fileStem={`${fileStem}-disc`}
+      width={SIZE}
+      height={SIZE}
+      margin={MARGIN}
+      domain={domain}
+      xLabel="x along the receding major axis (kpc)"
+      yLabel="y in the disc (kpc)"
+      targets={targets}
+      testId="external-disc-map"
+      caption={
+        <>
+          The sources deprojected into the disc: x along the receding major axis, azimuth φ
+          counterclockwise in the sense of rotation ({result.rotation} on the sky
+          {result.rotationInference ? ', inferred from trailing arms' : ''}). Thin circles: the ring
+          edges of the analysis.{' '}
+          {arms
+            ? `Lines: the ${arms.m} log-spiral arm ridges (pitch ${fmt(arms.pitchDeg, 1)}°, ${result.armsFit ? 'fitted to the positions' : 'entered'}).`
+            : 'No arm ridges: too few sources to fit them.'}
+        </>
+      }
+      overlay={() => (
+        <g transform={`translate(${MARGIN.left + 8} ${MARGIN.top + 8})`}>
+          <rect
+            width={170}
+            height={16 * 3 + 6}
+            fill={PLOT_COLOURS.background}
+            fillOpacity={0.9}
+            stroke={PLOT_COLOURS.rule}
+          />
+          {[marks.gas, marks.young].map((m, i) => (
+            <g key={m.label} transform={`translate(10 ${14 + 16 * i})`}>
+              <path d={markerPath(m.style.shape, 0, -3, 4)} fill={m.style.colour} />
+              <text x={10} y={0} fill={PLOT_COLOURS.ink}>
+                {m.label}
+              </text>
+            </g>
+          ))}
+          <g transform={`translate(10 ${14 + 32})`}>
+            <line x1={-5} x2={5} y1={-3} y2={-3} stroke={PLOT_COLOURS.accent} strokeWidth={2} />
+            <text x={10} y={0} fill={PLOT_COLOURS.ink}>
+              arm ridge line
+            </text>
+          </g>
+        </g>
+      )}
+    >
+      {({ px, py, unitPx }) => (
+        <>
+          {edges.map((r) => (
+            <circle
+              key={r}
+              cx={px(0)}
+              cy={py(0)}
+              r={r * unitPx}
+              fill="none"
+              stroke={PLOT_COLOURS.rule}
+              strokeWidth={0.7}
+              data-testid="disc-ring"
+            />
+          ))}
+          {points.map((p, i) => {
+            const s = markOf(p.code);
+            return (
+              <path
+                key={i}
+                d={markerPath(s?.shape ?? 'cross', px(p.x), py(p.y), 2.6)}
+                fill={s?.colour ?? PLOT_COLOURS.inkSoft}
+                fillOpacity={s ? 0.8 : 0.3}
+              />
+            );
+          })}
+          {ridges.map((xy, k) => (
+            <polyline
+              key={k}
+              points={xy.map(([x, y]) => `${px(x).toFixed(1)},${py(y).toFixed(1)}`).join(' ')}
+              fill="none"
+              stroke={PLOT_COLOURS.accent}
+              strokeWidth={2}
+              strokeOpacity={0.85}
+              data-testid="disc-arm"
+            />
+          ))}
+          <g stroke={PLOT_COLOURS.ink} strokeWidth={1.5}>
+            <line x1={px(0) - 5} x2={px(0) + 5} y1={py(0)} y2={py(0)} />
+            <line x1={px(0)} x2={px(0)} y1={py(0) - 5} y2={py(0) + 5} />
+          </g>
+        </>
+      )}
+    </ZoomFigure>
+  );
+}

@@ -9,7 +9,11 @@
  * Lower weighted median of values[0 … n−1] with positive weights; reorders both arrays in place
  * (they stay paired). Returns NaN for n = 0.
  */
-export function weightedMedianInPlace(values: Float64Array, weights: Float64Array, n: number): number {
+export function weightedMedianInPlace(
+  values: Float64Array,
+  weights: Float64Array,
+  n: number,
+): number {
   if (n === 0) return NaN;
   let rangeWeight = 0;
   for (let i = 0; i < n; i++) rangeWeight += weights[i];

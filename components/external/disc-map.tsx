@@ -4,11 +4,13 @@ import { useMemo } from 'react';
 import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
 import { fmt } from '@/components/link-runs/format';
 import { ZoomFigure, type Domain, type HoverTarget } from '@/components/ordering/zoom-figure';
-import { GAS, YOUNG, ringEdgesKpc } from '@/lib/external/ring-offsets';
+import { ringEdgesKpc } from '@/lib/external/ring-offsets';
 import type { LogSpiralArms, RingSpec } from '@/lib/external/types';
-import { markerPath } from '@/lib/tracers';
-import { armRidgesXY, type ClassMark } from './figure-model';
-import { column, type ExternalResultJson } from './types';
+import { markerPath, tracerStyle, TRACER_KINDS } from '@/lib/tracers';
+import { armRidgesXY, roleOfKind } from './figure-model';
+import type { ExternalResultJson } from './types';
+
+const ROLE_WORDS = { gas: 'gas', young: 'young stars', other: 'not measured' } as const;
 
 const SIZE = 620;
 const MARGIN = { left: 58, right: 14, top: 14, bottom: 44 };
@@ -17,32 +19,32 @@ export const DISC_MAP_TITLE = 'Deprojected face-on map of the disc';
 
 /**
  * The sources deprojected into the galaxy's disc (x along the receding major axis, azimuth
- * counterclockwise in the sense of rotation, kpc), gas and young stars by colour and shape, the
+ * counterclockwise in the sense of rotation, kpc), each tracer kind by its colour and shape
+ * (`lib/tracers`; kinds neither gas nor young stars faint), the
  * ring edges of the analysis, and the arm ridges it used (fitted or entered) over the rings.
  */
 export function DiscMap({
   result,
   rings,
-  marks,
   fileStem,
 }: {
   result: ExternalResultJson;
   rings: RingSpec;
-  marks: { gas: ClassMark; young: ClassMark };
   fileStem: string;
 }) {
+  const { gasKinds, youngKinds } = result.input;
   const points = useMemo(() => {
-    const R = column(result.sources.RKpc);
-    const phi = column(result.sources.phiDeg);
-    const code = column(result.sources.classCode);
-    return R.map((r, i) => ({
-      x: r * Math.cos((phi[i] * Math.PI) / 180),
-      y: r * Math.sin((phi[i] * Math.PI) / 180),
+    const { RKpc, phiDeg, kind } = result.sources;
+    return RKpc.map((r, i) => ({
+      x: r * Math.cos((phiDeg[i] * Math.PI) / 180),
+      y: r * Math.sin((phiDeg[i] * Math.PI) / 180),
       R: r,
-      phiDeg: phi[i],
-      code: code[i],
+      phiDeg: phiDeg[i],
+      kind: kind[i],
+      role: roleOfKind(kind[i], gasKinds, youngKinds),
     }));
-  }, [result.sources]);
+  }, [result.sources, gasKinds, youngKinds]);
+  const kinds = TRACER_KINDS.filter((k) => result.sources.kind.includes(k));
   const arms: LogSpiralArms | null = result.armModel;
   const ridges = useMemo(
     () => (arms ? armRidgesXY(arms, rings.minKpc, rings.maxKpc) : []),
@@ -61,12 +63,10 @@ export function DiscMap({
       points.map((p) => ({
         x: p.x,
         y: p.y,
-        text: `${p.code === GAS ? marks.gas.label : p.code === YOUNG ? marks.young.label : 'other class'} at R ${fmt(p.R, 2)} kpc, φ ${fmt(p.phiDeg, 1)}°`,
+        text: `${tracerStyle(p.kind).label} (${ROLE_WORDS[p.role]}) at R ${fmt(p.R, 2)} kpc, φ ${fmt(p.phiDeg, 1)}°`,
       })),
-    [points, marks],
+    [points],
   );
-  const markOf = (code: number) =>
-    code === GAS ? marks.gas.style : code === YOUNG ? marks.young.style : null;
 
   return (
     <ZoomFigure
@@ -94,21 +94,24 @@ export function DiscMap({
       overlay={() => (
         <g transform={`translate(${MARGIN.left + 8} ${MARGIN.top + 8})`}>
           <rect
-            width={170}
-            height={16 * 3 + 6}
+            width={150}
+            height={16 * (kinds.length + 1) + 6}
             fill={PLOT_COLOURS.background}
             fillOpacity={0.9}
             stroke={PLOT_COLOURS.rule}
           />
-          {[marks.gas, marks.young].map((m, i) => (
-            <g key={m.label} transform={`translate(10 ${14 + 16 * i})`}>
-              <path d={markerPath(m.style.shape, 0, -3, 4)} fill={m.style.colour} />
-              <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-                {m.label}
-              </text>
-            </g>
-          ))}
-          <g transform={`translate(10 ${14 + 32})`}>
+          {kinds.map((k, i) => {
+            const t = tracerStyle(k);
+            return (
+              <g key={k} transform={`translate(10 ${14 + 16 * i})`}>
+                <path d={markerPath(t.shape, 0, -3, 4)} fill={t.colour} />
+                <text x={10} y={0} fill={PLOT_COLOURS.ink}>
+                  {t.label} ({ROLE_WORDS[roleOfKind(k, gasKinds, youngKinds)]})
+                </text>
+              </g>
+            );
+          })}
+          <g transform={`translate(10 ${14 + 16 * kinds.length})`}>
             <line x1={-5} x2={5} y1={-3} y2={-3} stroke={PLOT_COLOURS.accent} strokeWidth={2} />
             <text x={10} y={0} fill={PLOT_COLOURS.ink}>
               arm ridge line
@@ -132,13 +135,13 @@ export function DiscMap({
             />
           ))}
           {points.map((p, i) => {
-            const s = markOf(p.code);
+            const t = tracerStyle(p.kind);
             return (
               <path
                 key={i}
-                d={markerPath(s?.shape ?? 'cross', px(p.x), py(p.y), 2.6)}
-                fill={s?.colour ?? PLOT_COLOURS.inkSoft}
-                fillOpacity={s ? 0.8 : 0.3}
+                d={markerPath(t.shape, px(p.x), py(p.y), 2.6)}
+                fill={t.colour}
+                fillOpacity={p.role === 'other' ? 0.3 : 0.8}
               />
             );
           })}

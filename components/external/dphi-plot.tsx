@@ -5,8 +5,8 @@ import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
 import { fmt } from '@/components/link-runs/format';
 import { ZoomFigure, type Domain, type HoverTarget } from '@/components/ordering/zoom-figure';
 import type { ExternalRotationCurve } from '@/lib/external/rotation';
-import { modelDphiDeg, type ClassMark } from './figure-model';
-import { column, type ExternalResultJson } from './types';
+import { classWords, modelDphiDeg } from './figure-model';
+import type { ExternalResultJson } from './types';
 
 export const DPHI_PLOT_TITLE = 'Azimuthal offset Δφ of young stars from gas against disc radius';
 
@@ -19,23 +19,24 @@ export const DPHI_PLOT_TITLE = 'Azimuthal offset Δφ of young stars from gas ag
 export function DphiPlot({
   result,
   curve,
-  marks,
   fileStem,
 }: {
   result: ExternalResultJson;
   curve: ExternalRotationCurve;
-  marks: { gas: ClassMark; young: ClassMark };
   fileStem: string;
 }) {
   const fit = result.fit;
-  const used = useMemo(() => (fit ? column(fit.usedBins) : []), [fit]);
-  const rings = useMemo(
-    () =>
-      result.rings.flatMap((r, k) =>
-        r.dphiDeg === null ? [] : [{ ...r, dphiDeg: r.dphiDeg, fitted: used[k] === 1 }],
-      ),
-    [result.rings, used],
+  const words = classWords(
+    result.input.catalogs.map((c) => c.kind),
+    result.input.gasKinds,
+    result.input.youngKinds,
   );
+  const rings = useMemo(() => {
+    const used = fit?.usedBins ?? [];
+    return result.rings.flatMap((r, k) =>
+      r.dphiDeg === null ? [] : [{ ...r, dphiDeg: r.dphiDeg, fitted: used[k] === 1 }],
+    );
+  }, [result.rings, fit]);
   const lo = result.rings[0]?.minKpc ?? 0;
   const hi = result.rings[result.rings.length - 1]?.maxKpc ?? 1;
   const model = useMemo(() => {
@@ -89,9 +90,9 @@ export function DphiPlot({
       testId="external-dphi-r"
       caption={
         <>
-          Each ring’s Δφ of {marks.young.label.toLowerCase()} minus {marks.gas.label.toLowerCase()},
-          positive ahead in the sense of rotation, with its 95 % bootstrap interval; filled: rings
-          the fit used, hollow: rings it left out.{' '}
+          Each ring’s Δφ of {words.young} minus {words.gas}, positive ahead in the sense of
+          rotation, with its 95 % bootstrap interval; filled: rings the fit used, hollow: rings it
+          left out.{' '}
           {model.length === 0
             ? `No curve: ${result.fitReason ?? 'no fit'}.`
             : constrained

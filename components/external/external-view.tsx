@@ -11,7 +11,6 @@ import { makeExternalRotationCurve } from '@/lib/external/rotation';
 import type { ExternalGalaxy } from '@/lib/external/types';
 import { DiscMap } from './disc-map';
 import { DphiPlot } from './dphi-plot';
-import { classMarks } from './figure-model';
 import { FitFacts, RingTable } from './result-panels';
 import type { ExternalAnalysis } from './types';
 
@@ -28,32 +27,23 @@ function useExternalAnalysis(analysisId: string) {
 /**
  * An external-galaxy analysis: its progress while it runs, then the fit with its intervals, the
  * null test, the deprojected face-on map, Δφ(R) with the fitted curve, and the rings. The curve is
- * drawn on the rotation curve the analysis ran with (its own galaxy, else the project's target).
+ * drawn on the rotation curve the analysis ran with (the result's galaxy; before a result, the
+ * request's or the project's target).
  */
 export function ExternalView({
   analysisId,
   targetGalaxy,
-  catalogKinds,
 }: {
   analysisId: string;
   targetGalaxy: ExternalGalaxy;
-  /** Catalog id → tracer kind, for the marks of the classes. */
-  catalogKinds: Map<string, string>;
 }) {
   const { data, error } = useExternalAnalysis(analysisId);
   const analysis = data?.analysis;
-  const galaxy = analysis?.params.galaxy ?? targetGalaxy;
+  const galaxy = analysis?.result?.galaxy ?? analysis?.params.galaxy ?? targetGalaxy;
   const curve = useMemo(
     () => makeExternalRotationCurve(galaxy.rotationCurve),
     [galaxy.rotationCurve],
   );
-  const marks = useMemo(() => {
-    const present = (analysis?.params.catalogIds ?? []).flatMap((id) => {
-      const k = catalogKinds.get(id);
-      return k ? [k] : [];
-    });
-    return classMarks(present, analysis?.params.gasKinds, analysis?.params.youngKinds);
-  }, [analysis?.params, catalogKinds]);
   if (error) return <ErrorNote>Could not load the analysis: {error.message}</ErrorNote>;
   if (!analysis) return <p className="text-sm text-ink-soft">Loading the analysis…</p>;
   const result = analysis.result;
@@ -88,15 +78,10 @@ export function ExternalView({
           </Panel>
           <div className="grid gap-6 2xl:grid-cols-2">
             <Panel>
-              <DiscMap
-                result={result}
-                rings={analysis.params.rings}
-                marks={marks}
-                fileStem={stem}
-              />
+              <DiscMap result={result} rings={analysis.params.rings} fileStem={stem} />
             </Panel>
             <Panel>
-              <DphiPlot result={result} curve={curve} marks={marks} fileStem={stem} />
+              <DphiPlot result={result} curve={curve} fileStem={stem} />
             </Panel>
           </div>
           <Panel title="Rings">

@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useMemo, useState } from 'react';
+import { useState } from 'react';
 import { fmt, fmtWhen } from '@/components/link-runs/format';
 import { ANALYSIS_POLL_MS } from '@/components/ordering/analysis-view';
 import { analysesKey } from '@/components/ordering/analyses-panel';
@@ -275,11 +275,7 @@ export function ExternalWorkspace({
     refetchInterval: (q) =>
       q.state.data?.analyses.some((a) => !isFinalAnalysis(a.status)) ? ANALYSIS_POLL_MS : false,
   });
-  const kinds = useMemo(
-    () => new Map((catalogs.data?.catalogs ?? []).map((c) => [c.id, c.kind])),
-    [catalogs.data],
-  );
-  const items = (analyses.data?.analyses ?? []).filter((a) => a.params.kind === 'external-galaxy');
+  const items = (analyses.data?.analyses ?? []).filter((a) => a.kind === 'external-galaxy');
   return (
     <div className="space-y-6">
       <div className="grid gap-6 2xl:grid-cols-2">
@@ -305,12 +301,7 @@ export function ExternalWorkspace({
         </Panel>
       </div>
       {analysisId && (
-        <ExternalView
-          key={analysisId}
-          analysisId={analysisId}
-          targetGalaxy={target.galaxy}
-          catalogKinds={kinds}
-        />
+        <ExternalView key={analysisId} analysisId={analysisId} targetGalaxy={target.galaxy} />
       )}
     </div>
   );

@@ -7,7 +7,7 @@ import { ridgeAzimuthRad } from '@/lib/external/arms-fit';
 import type { ExternalRotationCurve } from '@/lib/external/rotation';
 import type { LogSpiralArms } from '@/lib/external/types';
 import { DEFAULT_GAS_KINDS, DEFAULT_YOUNG_KINDS } from '@/lib/external/types';
-import { tracerStyle, type TracerKind, type TracerStyle } from '@/lib/tracers';
+import { tracerStyle, type TracerKind } from '@/lib/tracers';
 import type { ExternalFitJson } from './types';
 
 const DEG = Math.PI / 180;
@@ -53,26 +53,27 @@ export function armRidgesXY(
   );
 }
 
-/** How a class of the analysis is marked: the style of its first kind among the analysed
- * catalogs (colour and shape, `lib/tracers`), and a label listing the kinds it holds. */
-export type ClassMark = { style: TracerStyle; label: string };
+/** The role a tracer kind plays in the analysis. */
+export type ClassRole = 'gas' | 'young' | 'other';
 
-/**
- * Marks of the gas and young-star classes for the kinds actually analysed (`present`), the
- * analysis's own gas/young kinds by default (`lib/external/types`).
- */
-export function classMarks(
-  present: readonly string[],
+/** Gas, young stars, or neither, by the analysis's kinds (`lib/external/types` defaults). */
+export function roleOfKind(
+  kind: TracerKind,
   gasKinds: readonly TracerKind[] = DEFAULT_GAS_KINDS,
   youngKinds: readonly TracerKind[] = DEFAULT_YOUNG_KINDS,
-): { gas: ClassMark; young: ClassMark } {
-  const mark = (word: string, kinds: readonly TracerKind[]): ClassMark => {
+): ClassRole {
+  return gasKinds.includes(kind) ? 'gas' : youngKinds.includes(kind) ? 'young' : 'other';
+}
+
+/** "young stars (HII) minus gas (CO)": the kinds of each class that were analysed. */
+export function classWords(
+  present: readonly TracerKind[],
+  gasKinds: readonly TracerKind[] = DEFAULT_GAS_KINDS,
+  youngKinds: readonly TracerKind[] = DEFAULT_YOUNG_KINDS,
+): { gas: string; young: string } {
+  const words = (kinds: readonly TracerKind[]) => {
     const used = kinds.filter((k) => present.includes(k));
-    const shown = used.length ? used : kinds;
-    return {
-      style: tracerStyle(shown[0]),
-      label: `${word} (${shown.map((k) => tracerStyle(k).label).join(', ')})`,
-    };
+    return (used.length ? used : kinds).map((k) => tracerStyle(k).label).join(', ');
   };
-  return { gas: mark('Gas', gasKinds), young: mark('Young stars', youngKinds) };
+  return { gas: `gas (${words(gasKinds)})`, young: `young stars (${words(youngKinds)})` };
 }

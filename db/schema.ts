@@ -338,6 +338,35 @@ export const analyses = mysqlTable(
   (t) => [index('analyses_project').on(t.projectId, t.createdAt)],
 );
 
+/**
+ * Each complex as the analysis placed it, copied from its result when it turns done, so that the
+ * complexes table can show and sort on the latest analysis's distances in SQL.
+ */
+export const analysisComplexes = mysqlTable(
+  'analysis_complexes',
+  {
+    analysisId: id('analysis_id')
+      .notNull()
+      .references(() => analyses.id, { onDelete: 'cascade' }),
+    runId: id('run_id').notNull(),
+    complexId: int('complex_id').notNull(),
+    distKpc: double('dist_kpc'),
+    distLoKpc: double('dist_lo_kpc'),
+    distHiKpc: double('dist_hi_kpc'),
+    distCi95LoKpc: double('dist_ci95_lo_kpc'),
+    distCi95HiKpc: double('dist_ci95_hi_kpc'),
+    pNear: double('p_near'),
+    distanceChoice: varchar('distance_choice', { length: 16 }).notNull(),
+    arm: varchar('arm', { length: 64 }),
+    perpOffsetKpc: double('perp_offset_kpc'),
+    used: boolean('used').notNull(),
+  },
+  (t) => [
+    primaryKey({ columns: [t.analysisId, t.complexId] }),
+    index('analysis_complexes_run').on(t.runId, t.complexId),
+  ],
+);
+
 /** An editor's distance for a complex, used by later analyses instead of the kinematic one. */
 export const distanceOverrides = mysqlTable(
   'distance_overrides',

@@ -10,6 +10,7 @@ import { ComplexMembersTable } from '@/components/tables/complex-members-table';
 import { ErrorNote, PageHeader, Panel } from '@/components/ui/panel';
 import { TracerBadge } from '@/components/ui/tracer-badge';
 import { TRACER_KINDS } from '@/lib/tracers';
+import { AnalysisPlacementPanel } from './analysis-placement-panel';
 import { fmt, fmtCount } from './format';
 import { DistancePanel } from './distance-panel';
 import { ReviewPanel } from './review-panel';
@@ -53,7 +54,8 @@ function useIdBounds(runId: string) {
 
 /**
  * One complex: its facts, members (canonical and original columns), links, a sky plot with the
- * match circles, its place in the longitude–velocity plane, and its review with history.
+ * match circles, its place in the longitude–velocity plane, its review with history, and where
+ * the run's latest ordering analysis placed it.
  */
 export function ComplexDetail({
   projectId,
@@ -169,6 +171,9 @@ export function ComplexDetail({
       <div className="grid grid-cols-1 gap-6 2xl:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="2xl:sticky 2xl:top-6 2xl:order-last 2xl:self-start">
           <ReviewPanel key={c.id} runId={runId} complex={c} history={c.history} canEdit={canEdit} />
+          <div className="mt-6">
+            <AnalysisPlacementPanel projectId={projectId} analysis={c.analysis} />
+          </div>
           <div className="mt-6">
             <DistancePanel
               key={`d${c.id}`}

@@ -62,6 +62,17 @@ export function fmt(x: number | null | undefined, decimals: number): string {
   return Number(s) === 0 ? s.replace(/^-/, '') : s.replace(/^-/, '−');
 }
 
+/** An interval `lo–hi` with `decimals` places, or `—` when either end is missing. */
+export function fmtRange(
+  lo: number | null | undefined,
+  hi: number | null | undefined,
+  decimals: number,
+): string {
+  const a = fmt(lo, decimals);
+  const b = fmt(hi, decimals);
+  return a === '—' || b === '—' ? '—' : `${a}–${b}`;
+}
+
 /** Integers with grouping, the same in every table. */
 export const fmtCount = (n: number) => n.toLocaleString('en-US');
 

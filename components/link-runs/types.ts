@@ -3,6 +3,8 @@
  * are degrees unless a name says otherwise; velocities are LSR km/s; times are ISO 8601.
  */
 
+import type { DistanceChoice } from '@/lib/ordering/types';
+
 export type RunStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
 export type Review = 'accepted' | 'doubtful' | 'rejected';
 export type LinkMode = 'all' | 'nearest' | 'mutual';
@@ -92,6 +94,26 @@ export interface Estimate {
 
 export type ClassCounts = Record<'hi' | 'co' | 'hii' | 'ob' | 'other', number>;
 
+/**
+ * A complex as the run's latest done ordering analysis placed it: distance (kpc) as the median
+ * of its Monte Carlo draws with the 68 % (`distLoKpc`–`distHiKpc`) and 95 % intervals, the
+ * probability of the near root, its arm and signed offset from the ridge (kpc, positive ahead in
+ * the sense of rotation).
+ */
+export interface ComplexAnalysis {
+  id: string;
+  finishedAt: string;
+  distKpc: number | null;
+  distLoKpc: number | null;
+  distHiKpc: number | null;
+  distCi95: [number, number] | null;
+  pNear: number | null;
+  choice: DistanceChoice;
+  arm: string | null;
+  perpOffsetKpc: number | null;
+  used: boolean;
+}
+
 export interface Complex {
   id: string;
   size: number;
@@ -110,6 +132,7 @@ export interface Complex {
   reviewNote: string | null;
   reviewedBy: Person | null;
   reviewedAt: string | null;
+  analysis: ComplexAnalysis | null;
 }
 
 export interface ComplexPage {

@@ -12,8 +12,16 @@ import Link from 'next/link';
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
 import { TRACER_KINDS, tracerStyle } from '@/lib/tracers';
-import { REVIEW_TONE, REVIEW_WORDS, fmt, fmtCount } from '@/components/link-runs/format';
+import {
+  REVIEW_TONE,
+  REVIEW_WORDS,
+  fmt,
+  fmtCount,
+  fmtRange,
+  fmtWhen,
+} from '@/components/link-runs/format';
 import type { Complex, ComplexPage } from '@/components/link-runs/types';
+import { CHOICE_WORDS } from '@/components/ordering/words';
 import { Button } from '@/components/ui/button';
 import { SortableTable } from './sortable-table';
 import { TablePager } from './table-pager';
@@ -108,6 +116,31 @@ function columns(href: (id: string) => string) {
       header: 'reliability',
       cell: (c) => fmt(c.getValue(), 3),
     }),
+    col.accessor((c) => c.analysis?.distKpc ?? null, {
+      id: 'dist',
+      meta: {
+        ...NUMERIC,
+        title:
+          'From the latest ordering analysis of this run: median of the distance draws and its 68 % interval',
+      },
+      header: 'distance (kpc)',
+      cell: (c) => {
+        const a = c.row.original.analysis;
+        if (!a || a.distKpc === null) return <span className="text-ink-soft">—</span>;
+        return (
+          <span title={CHOICE_WORDS[a.choice]} data-testid="complex-dist">
+            {fmt(a.distKpc, 2)}{' '}
+            <span className="text-xs text-ink-soft">{fmtRange(a.distLoKpc, a.distHiKpc, 2)}</span>
+          </span>
+        );
+      },
+    }),
+    col.accessor((c) => c.analysis?.arm ?? null, {
+      id: 'arm',
+      header: 'arm',
+      enableSorting: false,
+      cell: (c) => c.getValue() ?? <span className="text-ink-soft">—</span>,
+    }),
     col.accessor('review', {
       header: 'review',
       cell: (c) => {
@@ -177,12 +210,41 @@ function filterParams(f: Filters): { params: Record<string, string> } | { proble
   return { params };
 }
 
+/** Which analysis the distance and arm columns come from, or how to get one. */
+function AnalysisNote({ projectId, page }: { projectId: string; page: ComplexPage }) {
+  const a = page.complexes.find((c) => c.analysis)?.analysis;
+  if (page.complexes.length === 0) return null;
+  if (!a)
+    return (
+      <p className="text-xs text-ink-soft">
+        Distances and arms appear once an ordering analysis of this run has finished; run one on{' '}
+        <Link href={`/projects/${projectId}/arms`} className="text-accent underline">
+          Arms &amp; ordering
+        </Link>
+        .
+      </p>
+    );
+  return (
+    <p className="text-xs text-ink-soft" data-testid="complexes-analysis">
+      Distance and arm from the{' '}
+      <Link
+        href={`/projects/${projectId}/arms?analysis=${a.id}#result`}
+        className="text-accent underline"
+      >
+        ordering analysis of {fmtWhen(a.finishedAt)}
+      </Link>{' '}
+      (the latest of this run).
+    </p>
+  );
+}
+
 const input = 'num w-20 rounded border border-rule bg-white px-2 py-1 text-sm';
 
 /**
  * A run's complexes, paged, sorted and filtered by the server: click a header to sort (ascending,
  * then descending); filter by size, classes present, separation, Δv, reliability, review state
- * and member name. Each row links to the complex's page.
+ * and member name. Distance and arm come from the run's latest done ordering analysis. Each row
+ * links to the complex's page.
  */
 export function ComplexesTable({
   runId,
@@ -378,6 +440,7 @@ export function ComplexesTable({
         </div>
       </form>
       <ErrorNote>{problem ?? (error && `Could not load complexes: ${error.message}`)}</ErrorNote>
+      {data && <AnalysisNote projectId={projectId} page={data} />}
 
       <div
         className={`overflow-x-auto rounded-md border border-rule bg-white ${isFetching ? 'opacity-70' : ''}`}

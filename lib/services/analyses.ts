@@ -22,6 +22,7 @@ import {
   type OrderingMember,
   type OrderingSettings,
 } from '@/lib/ordering';
+import { writeAnalysisComplexes } from './analysis-complexes';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
 import { toolCurve } from '@/lib/calculators';
@@ -203,15 +204,18 @@ export async function executeAnalysis(analysisId: string, progress: (f: number) 
       void progress(0.1 + 0.85 * f).catch(() => undefined);
     }
   });
-  await db
-    .update(analyses)
-    .set({
-      status: 'done',
-      progress: 1,
-      result: result as unknown as Record<string, unknown>,
-      finishedAt: sql`NOW(3)`,
-    })
-    .where(eq(analyses.id, analysisId));
+  await db.transaction(async (tx) => {
+    await writeAnalysisComplexes(tx, analysisId, run.id, result.complexes);
+    await tx
+      .update(analyses)
+      .set({
+        status: 'done',
+        progress: 1,
+        result: result as unknown as Record<string, unknown>,
+        finishedAt: sql`NOW(3)`,
+      })
+      .where(eq(analyses.id, analysisId));
+  });
 }
 
 export async function failAnalysis(analysisId: string, reason: string) {

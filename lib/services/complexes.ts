@@ -2,21 +2,36 @@ import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
-import { auditLog, catalogs, complexes, distanceOverrides, users } from '@/db/schema';
+import {
+  analysisComplexes,
+  auditLog,
+  catalogs,
+  complexes,
+  distanceOverrides,
+  users,
+} from '@/db/schema';
 import { HttpError, notFound } from '@/lib/http/errors';
+import {
+  analysisComplexesOn,
+  complexAnalysisJson,
+  latestDoneAnalysis,
+  type LatestAnalysis,
+} from './analysis-complexes';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
 
+/** Sort keys and their columns; `dist` is the latest done analysis's median distance. */
 const SORTS = {
-  id: 'id',
-  size: 'size',
-  l: 'l',
-  b: 'b',
-  v: 'v',
-  maxSepArcsec: 'max_sep_arcsec',
-  maxDvKms: 'max_dv_kms',
-  reliability: 'reliability',
-  review: 'review',
+  id: 'complexes.id',
+  size: 'complexes.size',
+  l: 'complexes.l',
+  b: 'complexes.b',
+  v: 'complexes.v',
+  maxSepArcsec: 'complexes.max_sep_arcsec',
+  maxDvKms: 'complexes.max_dv_kms',
+  reliability: 'complexes.reliability',
+  review: 'complexes.review',
+  dist: 'analysis_complexes.dist_kpc',
 } as const;
 
 const KIND_COLUMN = { hi: 'n_hi', co: 'n_co', hii: 'n_hii', ob: 'n_ob', other: 'n_other' } as const;
@@ -44,8 +59,10 @@ export const complexesQuerySchema = z.object({
 export type ComplexesQuery = z.infer<typeof complexesQuerySchema>;
 
 type ComplexRow = typeof complexes.$inferSelect & { reviewerName?: string | null };
+type AnalysisRow = typeof analysisComplexes.$inferSelect | null;
 
-export function complexJson(c: ComplexRow) {
+/** A complex as the API returns it, with its place in the latest done analysis (or null). */
+export function complexJson(c: ComplexRow, latest: LatestAnalysis | null, placed: AnalysisRow) {
   const counts = { hi: c.nHi, co: c.nCo, hii: c.nHii, ob: c.nOb, other: c.nOther };
   return {
     id: String(c.id),
@@ -67,12 +84,17 @@ export function complexJson(c: ComplexRow) {
     reviewNote: c.reviewNote,
     reviewedBy: c.reviewedBy ? { id: c.reviewedBy, name: c.reviewerName ?? '' } : null,
     reviewedAt: c.reviewedAt?.toISOString() ?? null,
+    analysis: complexAnalysisJson(latest, placed),
   };
 }
 
-/** One page of a run's complexes, filtered and sorted in SQL on indexed columns. */
+/**
+ * One page of a run's complexes, filtered and sorted in SQL on indexed columns; each carries its
+ * row of the run's latest done analysis (found once, LEFT JOINed on its id).
+ */
 export async function complexesPage(runId: string, q: ComplexesQuery) {
   const run = await requireDoneRun(runId);
+  const latest = await latestDoneAnalysis(runId);
   const where: SQL[] = [eq(complexes.runId, runId)];
   if (q.minSize !== undefined) where.push(sql`${complexes.size} >= ${q.minSize}`);
   if (q.maxSize !== undefined) where.push(sql`${complexes.size} <= ${q.maxSize}`);
@@ -92,11 +114,12 @@ export async function complexesPage(runId: string, q: ComplexesQuery) {
   const whereSql = and(...where)!;
   const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
   const rows = await db
-    .select({ c: complexes, reviewerName: users.name })
+    .select({ c: complexes, reviewerName: users.name, placed: analysisComplexes })
     .from(complexes)
     .leftJoin(users, eq(users.id, complexes.reviewedBy))
+    .leftJoin(analysisComplexes, analysisComplexesOn(latest?.id ?? null))
     .where(whereSql)
-    .orderBy(sql`${sql.raw(`complexes.${SORTS[q.sort]}`)} ${dir}`, sql`complexes.id ${dir}`)
+    .orderBy(sql`${sql.raw(SORTS[q.sort])} ${dir}`, sql`complexes.id ${dir}`)
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize);
   const summary = (run.summary ?? {}) as { complexes?: number };
@@ -112,7 +135,9 @@ export async function complexesPage(runId: string, q: ComplexesQuery) {
           )[0].n,
         );
   return {
-    complexes: rows.map((r) => complexJson({ ...r.c, reviewerName: r.reviewerName })),
+    complexes: rows.map((r) =>
+      complexJson({ ...r.c, reviewerName: r.reviewerName }, latest, r.placed),
+    ),
     total,
     page: q.page,
     pageSize: q.pageSize,
@@ -120,13 +145,15 @@ export async function complexesPage(runId: string, q: ComplexesQuery) {
 }
 
 async function loadComplex(runId: string, complexId: number) {
+  const latest = await latestDoneAnalysis(runId);
   const [r] = await db
-    .select({ c: complexes, reviewerName: users.name })
+    .select({ c: complexes, reviewerName: users.name, placed: analysisComplexes })
     .from(complexes)
     .leftJoin(users, eq(users.id, complexes.reviewedBy))
+    .leftJoin(analysisComplexes, analysisComplexesOn(latest?.id ?? null))
     .where(and(eq(complexes.runId, runId), eq(complexes.id, complexId)));
   if (!r) throw notFound('Complex');
-  return complexJson({ ...r.c, reviewerName: r.reviewerName });
+  return complexJson({ ...r.c, reviewerName: r.reviewerName }, latest, r.placed);
 }
 
 export const complexIdSchema = z.coerce.number().int().min(0);

@@ -137,12 +137,76 @@ describe('link runs in the browser', () => {
     const sizes = await table.locator('tbody tr td:nth-child(3)').allTextContents();
     expect(new Set(sizes)).toEqual(new Set(['2']));
 
+    // Distance and arm come from the run's latest ordering analysis: none yet, then one.
+    const headers = await table.locator('thead th').allTextContents();
+    const distCol = headers.findIndex((h) => h.startsWith('distance (kpc)')) + 1;
+    const armCol = headers.findIndex((h) => h.startsWith('arm')) + 1;
+    expect(distCol).toBeGreaterThan(0);
+    expect(armCol).toBeGreaterThan(0);
+    await page.getByText(/^Distances and arms appear once an ordering analysis/).waitFor();
+    expect(
+      new Set(await table.locator(`tbody tr td:nth-child(${distCol})`).allTextContents()),
+    ).toEqual(new Set(['—']));
+    const analysis = await client.json<{ analysis: { id: string } }>(
+      'POST',
+      `/api/projects/${projectId}/analyses`,
+      {
+        runId,
+        curve: { name: 'reid-2014' },
+        arms: { preset: 'reid-2014' },
+        resamples: 2000,
+        mcDraws: 100,
+      },
+    );
+    expect(analysis.status).toBe(202);
+    await expect
+      .poll(
+        async () =>
+          (
+            await client.json<{ analysis: { status: string } }>(
+              'GET',
+              `/api/analyses/${analysis.body.analysis.id}`,
+            )
+          ).body.analysis.status,
+        { timeout: 120_000, interval: 500 },
+      )
+      .toBe('done');
+    type Placed = {
+      distKpc: number | null;
+      distLoKpc: number | null;
+      distHiKpc: number | null;
+      arm: string | null;
+    };
+    const placed = await client.json<{ complexes: { id: string; analysis: Placed }[] }>(
+      'GET',
+      `/api/link-runs/${runId}/complexes?sort=id&dir=asc&pageSize=50`,
+    );
+    // The API's own values, as the table prints them (two decimals, the 68 % interval after).
+    const distText = (a: Placed) =>
+      a.distKpc === null
+        ? '—'
+        : `${a.distKpc.toFixed(2)} ${a.distLoKpc!.toFixed(2)}–${a.distHiKpc!.toFixed(2)}`;
+    expect(placed.body.complexes.some((c) => c.analysis.distKpc !== null)).toBe(true);
+    await page.reload();
+    await page.getByTestId('complexes-analysis').waitFor();
+    expect(await table.locator(`tbody tr td:nth-child(${distCol})`).allTextContents()).toEqual(
+      placed.body.complexes.map((c) => distText(c.analysis)),
+    );
+    expect(await table.locator(`tbody tr td:nth-child(${armCol})`).allTextContents()).toEqual(
+      placed.body.complexes.map((c) => c.analysis.arm ?? '—'),
+    );
+
     // Open the first complex and review it.
     const firstLink = table.getByRole('link', { name: /^Complex \d+$/ }).first();
     const complexId = (await firstLink.textContent())!.trim();
     await firstLink.click();
     await page.waitForURL(new RegExp(`/link-runs/${runId}/complexes/${complexId}$`));
     await page.getByRole('heading', { name: new RegExp(`^Complex ${complexId}`) }).waitFor();
+    await page.getByRole('heading', { name: /^From analysis / }).waitFor();
+    const shown = placed.body.complexes.find((c) => c.id === complexId)!.analysis;
+    expect(await page.getByTestId('analysis-dist').textContent()).toBe(
+      shown.distKpc === null ? '—' : shown.distKpc.toFixed(2),
+    );
     const members = page.getByRole('table', { name: 'Members' });
     await members.locator('tbody tr').first().waitFor();
     expect(await members.locator('tbody tr').count()).toBe(2);

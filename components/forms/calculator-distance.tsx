@@ -7,7 +7,9 @@ import { api } from '@/lib/api-client';
 import {
   KINEMATIC_FLAG_TEXT,
   readPastedRows,
+  type IntervalMethod,
   type KinematicDistanceRow,
+  type KpcInterval,
   type ToolCurveName,
   type ToolCurvePreset,
   type ToolCurveUsed,
@@ -25,17 +27,22 @@ import {
   type Column,
 } from './calculator-results';
 
-type Source = { line: number; l: number; b: number; v: number };
-type Computed = { sources: Source[]; curve: ToolCurveUsed; results: KinematicDistanceRow[] };
+type Source = { line: number; l: number; b: number; v: number; vErr?: number };
+type Response = {
+  curve: ToolCurveUsed;
+  intervals: IntervalMethod;
+  results: KinematicDistanceRow[];
+};
+type Computed = Response & { sources: Source[] };
 
 const EXAMPLE =
-  '# l (deg)  b (deg)  v_LSR (km/s)\n30.0 0.0 50.0\n24.6 -0.15 112.0\n49.2 0.3 8.5\n135.8 1.2 -42.0\n';
+  '# l (deg)  b (deg)  v_LSR (km/s)  [σ_v (km/s)]\n30.0 0.0 50.0\n24.6 -0.15 112.0 3\n49.2 0.3 8.5\n135.8 1.2 -42.0\n';
 
 const FLAG_SHORT: Record<KinematicFlag, string> = {
   'beyond-terminal': 'beyond terminal velocity',
   'near-tangent': 'close to the tangent point',
   'unreliable-longitude': 'unreliable longitude',
-  'outer-galaxy': 'outer Galaxy: one root',
+  'outer-galaxy': 'outer Galaxy: single root',
   'no-solution': 'no distance',
 };
 
@@ -46,23 +53,32 @@ const COLUMNS: Column[] = [
   { label: 'v_LSR (km/s)', numeric: true },
   { label: 'R (kpc)', numeric: true },
   { label: 'near (kpc)', numeric: true },
+  { label: 'near 68 % (kpc)', numeric: true },
   { label: 'far (kpc)', numeric: true },
+  { label: 'far 68 % (kpc)', numeric: true },
+  { label: 'single (kpc)', numeric: true },
+  { label: 'single 68 % (kpc)', numeric: true },
   { label: 'tangent (kpc)', numeric: true },
   { label: 'Notes' },
 ];
 
 const kpc = (x: number | null) => (x === null ? '—' : x.toFixed(3));
+const range = (r: KpcInterval | null | undefined) =>
+  r ? `${r[0].toFixed(2)}–${r[1].toFixed(2)}` : '—';
 
 function readSources(text: string): Source[] {
-  return readPastedRows(text, 3).map(({ line, values }) => {
-    const [l, b, v] = values.map((s, j) => {
+  return readPastedRows(text, 3, 4).map(({ line, values }) => {
+    const [l, b, v, vErr] = values.map((s, j) => {
       const n = Number(s);
       if (s === '' || !Number.isFinite(n)) {
-        throw new RangeError(`line ${line}: ${['l', 'b', 'v'][j]} "${s}" is not a number`);
+        throw new RangeError(`line ${line}: ${['l', 'b', 'v', 'σ_v'][j]} "${s}" is not a number`);
       }
       return n;
     });
-    return { line, l, b, v };
+    if (vErr !== undefined && !(vErr > 0)) {
+      throw new RangeError(`line ${line}: σ_v "${values[3]}" must be a positive number`);
+    }
+    return { line, l, b, v, vErr };
   });
 }
 
@@ -74,7 +90,7 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
   const [curveName, setCurveName] = useState<ToolCurveName>(presets[0].name);
   const preset = presets.find((p) => p.name === curveName) ?? presets[0];
   const [R0, setR0] = useState(String(preset.R0Kpc));
-  const [theta0, setTheta0] = useState(preset.theta0Kms.toFixed(2));
+  const [theta0, setTheta0] = useState(String(preset.theta0Kms));
   const [text, setText] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [selected, setSelected] = useState(0);
@@ -91,19 +107,15 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
           throw new RangeError(`${name} "${s}" must be a positive number.`);
         return n;
       });
-      const body = await api<{ curve: ToolCurveUsed; results: KinematicDistanceRow[] }>(
-        '/api/tools/kinematic-distance',
-        {
-          method: 'POST',
-          json: {
-            curve: curveName,
-            R0: constants[0],
-            // The preset's Θ(R0) is shown rounded; send it only when edited, so the curve stays exact.
-            theta0: theta0 === preset.theta0Kms.toFixed(2) ? undefined : constants[1],
-            sources: sources.map(({ l, b, v }) => ({ l, b, v })),
-          },
+      const body = await api<Response>('/api/tools/kinematic-distance', {
+        method: 'POST',
+        json: {
+          curve: curveName,
+          R0: constants[0],
+          theta0: constants[1],
+          sources: sources.map(({ l, b, v, vErr }) => ({ l, b, v, vErr })),
         },
-      );
+      });
       return { sources, ...body };
     },
     onMutate: () => setError(null),
@@ -130,7 +142,7 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
               const next = presets.find((p) => p.name === e.target.value) ?? presets[0];
               setCurveName(next.name);
               setR0(String(next.R0Kpc));
-              setTheta0(next.theta0Kms.toFixed(2));
+              setTheta0(String(next.theta0Kms));
             }}
           >
             {presets.map((p) => (
@@ -147,7 +159,7 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
             onChange={(e) => setR0(e.target.value)}
           />
           <TextField
-            label="Θ0 = Θ(R0) (km/s)"
+            label="Θ0 (km/s)"
             name="theta0"
             inputMode="decimal"
             value={theta0}
@@ -156,13 +168,13 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
         </div>
         <p className="text-xs text-ink-soft">Source: {preset.source}.</p>
         <PasteArea
-          label="Sources (l, b, v_LSR)"
+          label="Sources (l, b, v_LSR, optional σ_v)"
           name="distanceSources"
           rows={6}
           placeholder={EXAMPLE}
           value={text}
           onChange={(e) => setText(e.target.value)}
-          hint="One source per line: Galactic l and b in degrees and v_LSR in km/s, separated by spaces, tabs or commas; lines starting with # are skipped. Up to 100 000 lines."
+          hint="One source per line: Galactic l and b in degrees, v_LSR in km/s and optionally its 1σ uncertainty σ_v in km/s (measurement and streaming together; 7 km/s of streaming when left out), separated by spaces, tabs or commas; lines starting with # are skipped. Up to 100 000 lines; the first 10 000 get 68 % intervals."
         />
         <div className="flex items-center gap-3">
           <Button type="submit" disabled={compute.isPending}>
@@ -194,7 +206,7 @@ function DistanceResults({
   selected: number;
   onSelect: (i: number) => void;
 }) {
-  const { sources, results, curve } = result;
+  const { sources, results, curve, intervals } = result;
   const rows = results.map((r, i) => [
     sources[i].line,
     sources[i].l,
@@ -202,7 +214,11 @@ function DistanceResults({
     sources[i].v,
     kpc(r.R),
     kpc(r.near),
+    range(r.intervals?.near),
     kpc(r.far),
+    range(r.intervals?.far),
+    kpc(r.single),
+    range(r.intervals?.single),
     kpc(r.tangent),
     r.flags.length === 0 ? (
       <span className="text-ink-soft">two roots</span>
@@ -213,15 +229,41 @@ function DistanceResults({
     ),
   ]);
   const csv = toCsv(
-    ['line', 'l_deg', 'b_deg', 'v_lsr_kms', 'R_kpc', 'near_kpc', 'far_kpc', 'tangent_kpc', 'flags'],
+    [
+      'line',
+      'l_deg',
+      'b_deg',
+      'v_lsr_kms',
+      'v_err_kms',
+      'R_kpc',
+      'near_kpc',
+      'near_lo_kpc',
+      'near_hi_kpc',
+      'far_kpc',
+      'far_lo_kpc',
+      'far_hi_kpc',
+      'single_kpc',
+      'single_lo_kpc',
+      'single_hi_kpc',
+      'tangent_kpc',
+      'flags',
+    ],
     results.map((r, i) => [
       sources[i].line,
       sources[i].l,
       sources[i].b,
       sources[i].v,
+      sources[i].vErr ?? intervals.defaultVelocityErrKms,
       r.R,
       r.near,
+      r.intervals?.near?.[0] ?? null,
+      r.intervals?.near?.[1] ?? null,
       r.far,
+      r.intervals?.far?.[0] ?? null,
+      r.intervals?.far?.[1] ?? null,
+      r.single,
+      r.intervals?.single?.[0] ?? null,
+      r.intervals?.single?.[1] ?? null,
       r.tangent,
       r.flags.join(';'),
     ]),
@@ -233,9 +275,10 @@ function DistanceResults({
     <div className="space-y-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="text-sm text-ink-soft">
-          {results.length} source{results.length === 1 ? '' : 's'} on {curve.label} (R0 ={' '}
-          {curve.R0.toFixed(2)} kpc, Θ0 = {curve.theta0.toFixed(2)} km/s). Distances are along the
-          line of sight from the Sun; R is the Galactocentric radius. Click a row to plot it.
+          {results.length} source{results.length === 1 ? '' : 's'} on {curve.label} (R0 = {curve.R0}{' '}
+          kpc, Θ0 = {curve.theta0} km/s). Distances are along the line of sight from the Sun; R is
+          the Galactocentric radius; an outer-Galaxy source has its one root under single.{' '}
+          {intervals.note} Click a row to plot it.
         </p>
         <CsvActions csv={csv} filename={`kinematic-distances_${curve.name}.csv`} />
       </div>
@@ -262,7 +305,7 @@ function DistanceResults({
           bDeg={source.b}
           vKms={source.v}
           curve={curve}
-          roots={{ near: row.near, far: row.far, tangent: row.tangent }}
+          roots={{ near: row.near, far: row.far, single: row.single, tangent: row.tangent }}
         />
       )}
     </div>

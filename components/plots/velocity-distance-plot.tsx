@@ -30,7 +30,8 @@ export type VelocityDistancePlotProps = {
   bDeg: number;
   vKms: number;
   curve: { name: ToolCurveName; label: string; R0: number; theta0: number };
-  roots: { near: number | null; far: number | null; tangent: number | null };
+  /** `single` is the one root of an outer-Galaxy source (near and far null). */
+  roots: { near: number | null; far: number | null; single: number | null; tangent: number | null };
 };
 
 /** Round steps of 1, 2 or 5 × 10^k covering [lo, hi] with about `count` ticks. */
@@ -53,7 +54,7 @@ function niceCeil(x: number): number {
 /**
  * v_LSR (km/s) against line-of-sight distance d (kpc) along one sight line (l, b in degrees)
  * under circular rotation on the chosen curve, with the source's velocity as a horizontal line
- * and its near, far and tangent-point distances marked. Drawn as inline SVG; "Download SVG"
+ * and its near, far (or single outer-Galaxy) and tangent-point distances marked. Drawn as inline SVG; "Download SVG"
  * saves exactly what is shown.
  */
 export function VelocityDistancePlot({
@@ -67,7 +68,12 @@ export function VelocityDistancePlot({
   const plot = useMemo(() => {
     const rc = toolCurve(curve.name, curve.R0, curve.theta0);
     const dMax = niceCeil(
-      Math.max(15, 1.15 * (roots.far ?? 0), 2.3 * (roots.tangent ?? 0), 1.15 * (roots.near ?? 0)),
+      Math.max(
+        15,
+        1.15 * (roots.far ?? roots.single ?? 0),
+        2.3 * (roots.tangent ?? 0),
+        1.15 * (roots.near ?? 0),
+      ),
     );
     const d = new Float64Array(SAMPLES + 1);
     const v = new Float64Array(SAMPLES + 1);
@@ -91,13 +97,27 @@ export function VelocityDistancePlot({
     }
     const vTangent = roots.tangent === null ? null : vLsrAtKms(lDeg, bDeg, roots.tangent, rc);
     return { dMax, dTicks: ticks(0, dMax, 6), vTicks, x, y, path, vTangent };
-  }, [lDeg, bDeg, vKms, curve.name, curve.R0, curve.theta0, roots.far, roots.near, roots.tangent]);
+  }, [
+    lDeg,
+    bDeg,
+    vKms,
+    curve.name,
+    curve.R0,
+    curve.theta0,
+    roots.far,
+    roots.single,
+    roots.near,
+    roots.tangent,
+  ]);
 
   const { x, y } = plot;
   const atTangent = roots.tangent !== null && roots.near !== null && roots.near === roots.far;
+  // The square marks the far root, or the single root of an outer-Galaxy source.
+  const square = roots.far ?? roots.single;
+  const squareName = roots.far !== null ? 'far' : 'single';
   const tangentAbove = plot.vTangent !== null && plot.vTangent >= vKms;
   const rootLabelDy = tangentAbove ? 18 : -10;
-  const title = `l = ${lDeg.toFixed(3)}°, b = ${bDeg.toFixed(3)}°, v_LSR = ${vKms.toFixed(1)} km/s — ${curve.label}, R0 = ${curve.R0.toFixed(2)} kpc, Θ0 = ${curve.theta0.toFixed(1)} km/s`;
+  const title = `l = ${lDeg.toFixed(3)}°, b = ${bDeg.toFixed(3)}°, v_LSR = ${vKms.toFixed(1)} km/s — ${curve.label}, R0 = ${curve.R0} kpc, Θ0 = ${curve.theta0} km/s`;
 
   return (
     <figure className="space-y-2">
@@ -230,10 +250,10 @@ export function VelocityDistancePlot({
             </text>
           </g>
         )}
-        {!atTangent && roots.far !== null && (
-          <g data-root="far">
+        {!atTangent && square !== null && (
+          <g data-root={squareName}>
             <rect
-              x={x(roots.far) - 4.5}
+              x={x(square) - 4.5}
               y={y(vKms) - 4.5}
               width={9}
               height={9}
@@ -242,14 +262,14 @@ export function VelocityDistancePlot({
               strokeWidth={1.6}
             />
             <text
-              x={x(roots.far) + 6}
+              x={x(square) + 6}
               y={y(vKms) + rootLabelDy}
               fontSize={11}
               textAnchor="start"
               fill={COLOUR.ink}
               {...HALO}
             >
-              far {roots.far.toFixed(2)} kpc
+              {squareName} {square.toFixed(2)} kpc
             </text>
           </g>
         )}
@@ -277,8 +297,8 @@ export function VelocityDistancePlot({
       </svg>
       <figcaption className="flex flex-wrap items-center justify-between gap-2 text-xs text-ink-soft">
         <span>
-          Circular rotation on the chosen curve; ○ near and □ far roots on the dashed velocity line,
-          ◆ the tangent point (terminal velocity).
+          Circular rotation on the chosen curve; ○ near and □ far (or single) roots on the dashed
+          velocity line, ◆ the tangent point (terminal velocity).
         </span>
         <Button
           type="button"

@@ -23,7 +23,7 @@
  * cos l > 0, else null.
  */
 
-import type { RotationCurve } from './rotation-curves';
+import { curveWithConstants, type RotationCurve } from './rotation-curves';
 import { KINEMATIC_LSR, solarMotionProjectionKms } from './velocity';
 import { makeRng, deriveSeed } from '../stats/rng';
 import { quantileSelectInPlace } from '../stats/summary';
@@ -757,4 +757,134 @@ export function resolveAmbiguity(input: AmbiguityInput): AmbiguityResolution {
     distKpc: null,
     reason: `both roots lie within ${maxHeights} scale heights of the plane (far |z| = ${zFar.toFixed(3)} kpc); latitude cannot decide`,
   };
+}
+
+/** 68 % intervals (16th–84th percentiles, kpc) of one kind of root per source; NaN where no draw has it. */
+export type RootIntervalColumns = {
+  loKpc: Float64Array;
+  hiKpc: Float64Array;
+  /** Share of the draws that have this root. */
+  fraction: Float64Array;
+};
+
+/**
+ * Monte Carlo intervals of {@link kinematicIntervalsBulk}: the two inner roots and the single
+ * outer-Galaxy root apart, so that a draw crossing the solar circle never mixes them.
+ */
+export type KinematicIntervals = {
+  near: RootIntervalColumns;
+  far: RootIntervalColumns;
+  single: RootIntervalColumns;
+  draws: number;
+  /** True when R0 and Θ0 were drawn from the curve's published 1σ as well. */
+  constantsDrawn: boolean;
+};
+
+/** Options of {@link kinematicIntervalsBulk}: number of draws (default 200), seed (default 1), whether to draw R0/Θ0 (default true). */
+export type KinematicIntervalOptions = { draws?: number; seed?: number; drawConstants?: boolean };
+
+function intervalColumns(n: number): RootIntervalColumns {
+  return {
+    loKpc: new Float64Array(n).fill(NaN),
+    hiKpc: new Float64Array(n).fill(NaN),
+    fraction: new Float64Array(n),
+  };
+}
+
+/**
+ * Monte Carlo 68 % intervals of the kinematic roots for many sources (docs/methods.md,
+ * "Monte Carlo intervals"). Draw j moves every velocity by its own 1σ (`vErrKms`, km/s,
+ * measurement and streaming together; one value or a column) and, when `drawConstants` is on
+ * and the curve publishes them, shares one R0 ~ N(R0, σ_R0) and Θ0 ~ N(Θ0, σ_Θ0) across all
+ * sources (the same Galaxy for every source of a draw; {@link curveWithConstants}). Each draw
+ * is solved as {@link kinematicDistancesBulk} solves it; near and far collect the inner roots
+ * (a draw beyond the terminal velocity counts at the tangent point for both), `single` the
+ * outer-Galaxy roots. Source i draws from deriveSeed(seed, i) and the constants from
+ * deriveSeed(seed, −1), so a source's interval does not depend on what else is in the batch.
+ */
+export function kinematicIntervalsBulk(
+  lDeg: Float64Array,
+  bDeg: Float64Array,
+  vLsrKms: Float64Array,
+  vErrKms: Float64Array | number,
+  curve: RotationCurve,
+  options: KinematicIntervalOptions = {},
+): KinematicIntervals {
+  const n = lDeg.length;
+  const D = options.draws ?? 200;
+  const seed = options.seed ?? 1;
+  if (!Number.isInteger(D) || D < 2)
+    throw new RangeError(`kinematicIntervalsBulk: draws = ${D} must be an integer ≥ 2`);
+  if (
+    bDeg.length !== n ||
+    vLsrKms.length !== n ||
+    (typeof vErrKms !== 'number' && vErrKms.length !== n)
+  ) {
+    throw new RangeError(
+      'kinematicIntervalsBulk: l, b, v and vErr columns must have the same length',
+    );
+  }
+  const sigma =
+    typeof vErrKms === 'number'
+      ? new Float64Array(n).fill(checkSigma(vErrKms, 'kinematicIntervalsBulk'))
+      : Float64Array.from(vErrKms, (s, i) => checkSigma(s, `kinematicIntervalsBulk, source ${i}`));
+  const R0Err = curve.R0ErrKpc ?? 0;
+  const theta0Err = curve.theta0ErrKms ?? 0;
+  const constantsDrawn = (options.drawConstants ?? true) && (R0Err > 0 || theta0Err > 0);
+  const constantsRng = makeRng(deriveSeed(seed, -1));
+  const rngs = Array.from({ length: n }, (_, i) => makeRng(deriveSeed(seed, i)));
+  // Float32 keeps 10 000 sources × 200 draws × 3 roots at 24 MB; 1e-7 relative is far below any interval.
+  const near = new Float32Array(n * D).fill(NaN);
+  const far = new Float32Array(n * D).fill(NaN);
+  const single = new Float32Array(n * D).fill(NaN);
+  const vDraw = new Float64Array(n);
+  for (let j = 0; j < D; j++) {
+    let curveJ = curve;
+    if (constantsDrawn) {
+      // Truncated at 3σ so that a draw never asks for a non-positive R0 or Θ0.
+      const zR = Math.max(-3, Math.min(3, constantsRng.normal()));
+      const zT = Math.max(-3, Math.min(3, constantsRng.normal()));
+      curveJ = curveWithConstants(
+        curve,
+        curve.R0Kpc + R0Err * zR,
+        curve.theta0Kms + theta0Err * zT,
+      );
+    }
+    for (let i = 0; i < n; i++) vDraw[i] = vLsrKms[i] + sigma[i] * rngs[i].normal();
+    const out = kinematicDistancesBulk(lDeg, bDeg, vDraw, curveJ, sigma);
+    for (let i = 0; i < n; i++) {
+      const at = i * D + j;
+      if ((out.flags[i] & OUTER) !== 0) single[at] = out.farKpc[i];
+      else {
+        near[at] = out.nearKpc[i];
+        far[at] = out.farKpc[i];
+      }
+    }
+  }
+  const result: KinematicIntervals = {
+    near: intervalColumns(n),
+    far: intervalColumns(n),
+    single: intervalColumns(n),
+    draws: D,
+    constantsDrawn,
+  };
+  const scratch = new Float64Array(D);
+  const summarise = (all: Float32Array, cols: RootIntervalColumns, i: number) => {
+    let m = 0;
+    for (let j = 0; j < D; j++) {
+      const x = all[i * D + j];
+      if (x === x) scratch[m++] = x;
+    }
+    cols.fraction[i] = m / D;
+    if (m === 0) return;
+    const drawn = scratch.subarray(0, m);
+    cols.loKpc[i] = quantileSelectInPlace(drawn, 0.16);
+    cols.hiKpc[i] = quantileSelectInPlace(drawn, 0.84);
+  };
+  for (let i = 0; i < n; i++) {
+    summarise(near, result.near, i);
+    summarise(far, result.far, i);
+    summarise(single, result.single, i);
+  }
+  return result;
 }

@@ -64,14 +64,29 @@ describe('the calculators page in the browser', () => {
     await table.waitFor();
     const rows = table.locator('tbody tr');
     await expect.poll(() => rows.count()).toBe(3);
-    // Flat closed form R = R0 Θ0 sin l / (Θ0 sin l + v) (SCIENCE.md §4): R = 5.844, near 3.350, far 11.372
+    // Flat closed form R = R0 Θ0 sin l / (Θ0 sin l + v) (exact geometry): R = 5.844, near 3.350, far 11.372, tangent R0 cos l = 7.361
     const first = await rows.nth(0).locator('td').allTextContents();
-    expect(first.slice(4, 8)).toEqual(['5.844', '3.350', '11.372', '7.361']);
+    expect([first[4], first[5], first[7], first[11]]).toEqual([
+      '5.844',
+      '3.350',
+      '11.372',
+      '7.361',
+    ]);
+    // 68 % intervals around each root (near grows with v, far shrinks; exact geometry)
+    const [nearLo, nearHi] = first[6].split('–').map(Number);
+    expect(nearLo).toBeLessThan(3.35);
+    expect(nearHi).toBeGreaterThan(3.35);
+    const [farLo, farHi] = first[8].split('–').map(Number);
+    expect(farLo).toBeLessThan(11.372);
+    expect(farHi).toBeGreaterThan(11.372);
+    expect(first[9]).toBe('—');
     const second = await rows.nth(1).locator('td').allTextContents();
     expect(second[5]).toBe('—');
-    expect(second[8]).toMatch(/outer Galaxy/);
+    expect(second[7]).toBe('—');
+    expect(second[9]).toBe('4.617'); // flat closed form at l = 120°, v = −50 km/s (exact geometry)
+    expect(second[12]).toMatch(/outer Galaxy/);
     const third = await rows.nth(2).locator('td').allTextContents();
-    expect(third[8]).toMatch(/no distance/);
+    expect(third[12]).toMatch(/no distance/);
     await page.getByText(/No point on this sight line has this velocity/).waitFor();
 
     // The plot of the first row: curve, velocity line, near / far / tangent marked.
@@ -84,17 +99,18 @@ describe('the calculators page in the browser', () => {
       .toMatch(/near 3\.35 kpc/);
     expect(await plot.locator('[data-root="far"]').textContent()).toMatch(/far 11\.37 kpc/);
     expect(await plot.locator('[data-root="tangent"]').textContent()).toMatch(
-      /tangent 7\.36 kpc, v_t = 110\.0 km\/s/, // SCIENCE.md §4: l = 30°, v_t = 110 km/s, d_t = 7.36 kpc
+      /tangent 7\.36 kpc, v_t = 110\.0 km\/s/, // exact geometry: l = 30°, v_t = Θ0 (1 − sin l) = 110 km/s, d_t = 7.36 kpc
     );
     expect(await plot.textContent()).toMatch(/Distance along the line of sight d \(kpc\)/);
     expect(await plot.textContent()).toMatch(/v_LSR \(km\/s\)/);
 
-    // Selecting the outer-Galaxy row redraws the plot for its sight line: one (far) root, no tangent.
+    // Selecting the outer-Galaxy row redraws the plot for its sight line: one (single) root, no tangent.
     await rows.nth(1).click();
     await expect.poll(() => plot.getAttribute('aria-label')).toMatch(/l = 120\.000°/);
     expect(await plot.locator('[data-root="near"]').count()).toBe(0);
     expect(await plot.locator('[data-root="tangent"]').count()).toBe(0);
-    expect(await plot.locator('[data-root="far"]').textContent()).toMatch(/far 4\.62 kpc/);
+    expect(await plot.locator('[data-root="far"]').count()).toBe(0);
+    expect(await plot.locator('[data-root="single"]').textContent()).toMatch(/single 4\.62 kpc/);
 
     const [svgDownload] = await Promise.all([
       page.waitForEvent('download'),
@@ -104,7 +120,7 @@ describe('the calculators page in the browser', () => {
     const svg = fs.readFileSync(await svgDownload.path(), 'utf8');
     expect(svg).toMatch(/^<\?xml/);
     expect(svg).toMatch(/<svg[^>]*xmlns="http:\/\/www\.w3\.org\/2000\/svg"/);
-    expect(svg).toMatch(/far 4\.62 kpc/);
+    expect(svg).toMatch(/single 4\.62 kpc/);
     await context.close();
   });
 

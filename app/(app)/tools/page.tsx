@@ -20,7 +20,11 @@ export default function CalculatorsPage() {
           v_LSR = R0 sin l cos b (Θ(R)/R − Θ0/R0), solved for the Galactocentric radius R and then
           for the line-of-sight distances d = (R0 cos l ± √(R² − R0² sin² l)) / cos b. The frame is
           that of Reid et al. (2014): the Sun on the positive x axis at R0, azimuth 0 toward the
-          Sun, increasing with Galactic longitude.
+          Sun, increasing with Galactic longitude. Inside the solar circle a velocity has a near and
+          a far root; outside it one, shown under single. Each root comes with a 68 % interval from
+          Monte Carlo draws over the velocity (its σ_v, or 7 km/s of streaming) and over the
+          curve&apos;s published uncertainties of R0 and Θ0 (methods: docs/methods.md,
+          &quot;Kinematic distances&quot;).
         </p>
         <DistanceCalculator presets={TOOL_CURVE_PRESETS} />
       </Panel>

@@ -7,12 +7,17 @@ import {
   isUnreliableLongitude,
   kinematicDistance,
   kinematicDistancesBulk,
+  kinematicIntervalsBulk,
   monteCarloDistance,
   monteCarloDistancesBulk,
   resolveAmbiguity,
   vLsrAtKms,
 } from '@/lib/astro/kinematic-distance';
-import { makeRotationCurve, type RotationCurveName } from '@/lib/astro/rotation-curves';
+import {
+  curveWithConstants,
+  makeRotationCurve,
+  type RotationCurveName,
+} from '@/lib/astro/rotation-curves';
 import { deriveSeed, makeRng } from '@/lib/stats/rng';
 
 const D = Math.PI / 180;
@@ -384,5 +389,109 @@ describe('conventions of the published curves', () => {
     expect(isUnreliableLongitude(-14)).toBe(true);
     expect(isUnreliableLongitude(194)).toBe(true);
     expect(isUnreliableLongitude(196)).toBe(false);
+  });
+});
+
+describe('kinematicIntervalsBulk', () => {
+  const flat = makeRotationCurve('flat', { R0Kpc: 8.5, theta0Kms: 220 });
+  const closedForm = (l: number, v: number) => {
+    // flat closed form R = R0 Θ0 sin l / (Θ0 sin l + v), d = R0 cos l ± √(R² − R0² sin² l) (exact geometry)
+    const R = (8.5 * 220 * Math.sin(l * D)) / (220 * Math.sin(l * D) + v);
+    const q = Math.sqrt(R * R - 8.5 ** 2 * Math.sin(l * D) ** 2);
+    return { near: 8.5 * Math.cos(l * D) - q, far: 8.5 * Math.cos(l * D) + q, R };
+  };
+
+  it('gives the closed-form roots at v ∓ 1σ as the 16th/84th percentiles of a monotonic root', () => {
+    const l = Float64Array.of(30, 45);
+    const b = Float64Array.of(0, 0);
+    const v = Float64Array.of(50, 40);
+    const r = kinematicIntervalsBulk(l, b, v, Float64Array.of(7, 3), flat, { draws: 4000 });
+    expect(r.constantsDrawn).toBe(false); // the IAU 1985 constants carry no uncertainty (Kerr & Lynden-Bell 1986)
+    [7, 3].forEach((sigma, i) => {
+      // normal 16th/84th percentiles at ∓0.9945σ (standard normal table); ±0.06σ for 4000 draws
+      const z = 0.9945;
+      const at = (k: number) => closedForm(l[i], v[i] + k * sigma);
+      expect(r.near.loKpc[i]).toBeGreaterThan(at(-z - 0.06).near);
+      expect(r.near.loKpc[i]).toBeLessThan(at(-z + 0.06).near);
+      expect(r.near.hiKpc[i]).toBeGreaterThan(at(z - 0.06).near);
+      expect(r.near.hiKpc[i]).toBeLessThan(at(z + 0.06).near);
+      expect(r.far.loKpc[i]).toBeGreaterThan(at(z + 0.06).far);
+      expect(r.far.hiKpc[i]).toBeLessThan(at(-z - 0.06).far);
+      expect(r.near.fraction[i]).toBe(1);
+      expect(r.single.fraction[i]).toBe(0);
+    });
+  });
+
+  it('keeps the single outer-Galaxy root apart from near and far', () => {
+    const r = kinematicIntervalsBulk(
+      Float64Array.of(120),
+      Float64Array.of(0),
+      Float64Array.of(-50),
+      7,
+      flat,
+    );
+    expect(r.single.fraction[0]).toBe(1);
+    expect(Number.isNaN(r.far.loKpc[0])).toBe(true);
+    const lo = closedForm(120, -50 + 1.3 * 7);
+    const hi = closedForm(120, -50 - 1.3 * 7);
+    const single = (c: { R: number }) =>
+      8.5 * Math.cos(120 * D) + Math.sqrt(c.R ** 2 - 8.5 ** 2 * Math.sin(120 * D) ** 2);
+    // the outer root grows as v falls (exact geometry); bounds ±1.3σ hold the 68 % interval of 200 draws
+    expect(r.single.loKpc[0]).toBeGreaterThan(single(lo));
+    expect(r.single.hiKpc[0]).toBeLessThan(single(hi));
+  });
+
+  it('gives a source the same interval alone and in a batch', () => {
+    const curve = makeRotationCurve('reid-2014');
+    const alone = kinematicIntervalsBulk(
+      Float64Array.of(40),
+      Float64Array.of(0.2),
+      Float64Array.of(40),
+      5,
+      curve,
+      { draws: 50 },
+    );
+    const batch = kinematicIntervalsBulk(
+      Float64Array.of(40, 60, 130),
+      Float64Array.of(0.2, 0, 1),
+      Float64Array.of(40, 20, -40),
+      5,
+      curve,
+      { draws: 50 },
+    );
+    expect(batch.near.loKpc[0]).toBe(alone.near.loKpc[0]);
+    expect(batch.far.hiKpc[0]).toBe(alone.far.hiKpc[0]);
+  });
+
+  it('spreads a source by the published R0 and Θ0 errors when its velocity is nearly exact', () => {
+    const curve = makeRotationCurve('reid-2014');
+    const r = kinematicIntervalsBulk(
+      Float64Array.of(40),
+      Float64Array.of(0),
+      Float64Array.of(40),
+      0.01,
+      curve,
+      {
+        draws: 1000,
+      },
+    );
+    expect(r.constantsDrawn).toBe(true);
+    // Independent computation: draws of our own (other seed) solved by bisection on the exact
+    // curves; their 16th/84th percentiles agree to 0.3 of the width (sampling error of 300 and
+    // 600 draws)
+    const rng = makeRng(99);
+    const own = Array.from({ length: 600 }, () => {
+      const c = curveWithConstants(
+        curve,
+        8.34 + 0.16 * rng.normal(),
+        curve.theta0Kms + 8 * rng.normal(),
+      );
+      return kinematicDistance(40, 0, 40, c).nearKpc!;
+    }).sort((x, y) => x - y);
+    const [ownLo, ownHi] = [own[Math.round(0.16 * 599)], own[Math.round(0.84 * 599)]];
+    const width = ownHi - ownLo;
+    expect(Math.abs(r.near.loKpc[0] - ownLo)).toBeLessThan(0.3 * width);
+    expect(Math.abs(r.near.hiKpc[0] - ownHi)).toBeLessThan(0.3 * width);
+    expect(r.near.hiKpc[0] - r.near.loKpc[0]).toBeGreaterThan(0.05);
   });
 });

@@ -37,7 +37,7 @@ export const ARM_MODEL_PRESETS: Readonly<Record<string, ArmModelPreset>> = Objec
   'reid-2014': {
     label: 'Reid et al. (2014) arms',
     source:
-      'Reid et al. (2014), ApJ 783, 130, Table 2 (R_ref, β_ref, ψ, β range, width); values from memory, cross-read against public code; Perseus pitch 9.4° from memory',
+      'Reid et al. (2014), ApJ 783, 130, Table 2 (R_ref, β_ref, ψ, β range, width; R0 = 8.34 kpc, abstract). Values as Table 2 is commonly transcribed, not checked against the original table here; R_ref, β_ref, ψ and the β ranges agree between independent transcriptions',
     R0Kpc: 8.34,
     arms: [
       {
@@ -90,11 +90,11 @@ export const ARM_MODEL_PRESETS: Readonly<Record<string, ArmModelPreset>> = Objec
   'reid-2019': {
     label: 'Reid et al. (2019) arms',
     source:
-      'Reid et al. (2019), ApJ 885, 131, Table 2 (β_kink, R_kink, ψ<, ψ>, β range, width); values from memory, cross-read against public code; β ranges of the 3-kpc, Norma–Outer, Scutum–Centaurus and Sagittarius–Carina arms from memory',
+      'Reid et al. (2019), ApJ 885, 131, Table 2 (β range, β_kink, R_kink, ψ<, ψ>, width; R0 = 8.15 kpc, abstract). Values as Table 2 is commonly transcribed, not checked against the original table here; independent transcriptions agree on every number, including the Norma–Outer range 5° → 54°',
     R0Kpc: 8.15,
     arms: [
       kinked('3-kpc', 15, 18, 15, 3.52, -4.2, -4.2, 0.18),
-      kinked('Norma–Outer', -6, 54, 18, 4.46, -1.0, 19.5, 0.14),
+      kinked('Norma–Outer', 5, 54, 18, 4.46, -1.0, 19.5, 0.14),
       kinked('Scutum–Centaurus', 0, 104, 23, 4.91, 14.1, 12.1, 0.23),
       kinked('Sagittarius–Carina', 2, 97, 24, 6.04, 17.1, 1.0, 0.27),
       kinked('Local', -8, 34, 9, 8.26, 11.4, 11.4, 0.31),

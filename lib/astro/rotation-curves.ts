@@ -142,7 +142,7 @@ const MODELS: Record<Exclude<RotationCurveName, 'table'>, ModelSpec> = {
   'brand-blitz-1993': {
     label: 'Brand & Blitz (1993)',
     source:
-      'Brand & Blitz (1993), A&A 275, 67, their fitted outer rotation curve: Θ/Θ0 = a1 (R/R0)^a2 + a3, a1 = 1.0074, a2 = 0.0382, a3 = 0.00698, for the IAU 1985 values R0 = 8.5 kpc, Θ0 = 220 km/s. Convention: Θ0 = 220 km/s in the v_LSR formula, as the curve is used in practice (the fit itself gives Θ(R0) = 223.16 km/s). Standard-LSR velocities are used as they are',
+      'Brand & Blitz (1993), A&A 275, 67, their fitted outer rotation curve: Θ/Θ0 = a1 (R/R0)^a2 + a3, a1 = 1.0074, a2 = 0.0382, a3 = 0.00698, for the IAU 1985 values R0 = 8.5 kpc, Θ0 = 220 km/s. Convention: Θ0 = 220 km/s in the v_LSR formula, as the curve is used in practice (the fit itself gives Θ(R0) = 223.16 km/s). Standard-LSR velocities are used as they are. Coefficients as commonly tabulated; not checked against the original paper here',
     ...IAU_1985,
     frame: null,
     theta0IsConstant: true,

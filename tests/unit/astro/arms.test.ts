@@ -17,6 +17,61 @@ const D = Math.PI / 180;
 const reid14 = ARM_MODEL_PRESETS['reid-2014'];
 const reid19 = ARM_MODEL_PRESETS['reid-2019'];
 
+describe('arm presets', () => {
+  it('hold the Reid et al. (2019) Table 2 rows', () => {
+    // Reid et al. (2019) Table 2 as transcribed in several independent copies (original table not
+    // checked here): [β from, β to, β_kink, R_kink kpc, ψ< deg, ψ> deg, width kpc]
+    const table: Record<string, number[]> = {
+      '3-kpc': [15, 18, 15, 3.52, -4.2, -4.2, 0.18],
+      'Norma–Outer': [5, 54, 18, 4.46, -1.0, 19.5, 0.14],
+      'Scutum–Centaurus': [0, 104, 23, 4.91, 14.1, 12.1, 0.23],
+      'Sagittarius–Carina': [2, 97, 24, 6.04, 17.1, 1.0, 0.27],
+      Local: [-8, 34, 9, 8.26, 11.4, 11.4, 0.31],
+      Perseus: [-23, 115, 40, 8.87, 10.3, 8.7, 0.35],
+      Outer: [-16, 71, 18, 12.24, 3.0, 9.4, 0.65],
+    };
+    expect(reid19.R0Kpc).toBe(8.15); // Reid et al. (2019), abstract
+    expect(reid19.arms.map((a) => a.name)).toEqual(Object.keys(table));
+    for (const a of reid19.arms) {
+      expect([
+        a.betaMinDeg,
+        a.betaMaxDeg,
+        a.betaKinkDeg,
+        a.RrefKpc,
+        a.pitchDeg,
+        a.pitchAfterKinkDeg,
+        a.widthKpc,
+      ]).toEqual(table[a.name]);
+    }
+  });
+
+  it('hold the Reid et al. (2014) Table 2 rows', () => {
+    // Reid et al. (2014) Table 2 as transcribed (original table not checked here):
+    // [R_ref kpc, β_ref deg, ψ deg, β from, β to, width kpc]
+    const table: Record<string, number[]> = {
+      Scutum: [5.0, 27.6, 19.8, 3, 101, 0.17],
+      Sagittarius: [6.6, 25.6, 6.9, -2, 68, 0.26],
+      Local: [8.4, 8.9, 12.8, -8, 27, 0.33],
+      Perseus: [9.9, 14.2, 9.4, -21, 88, 0.38],
+      Outer: [13.0, 18.6, 13.8, -6, 56, 0.63],
+    };
+    expect(reid14.R0Kpc).toBe(8.34); // Reid et al. (2014), abstract
+    expect(reid14.arms.map((a) => a.name)).toEqual(Object.keys(table));
+    for (const a of reid14.arms) {
+      expect([a.RrefKpc, a.betaRefDeg, a.pitchDeg, a.betaMinDeg, a.betaMaxDeg, a.widthKpc]).toEqual(
+        table[a.name],
+      );
+    }
+  });
+
+  it("say where their numbers come from, in the trade's words", () => {
+    for (const p of Object.values(ARM_MODEL_PRESETS)) {
+      expect(p.source).toMatch(/Table 2/);
+      expect(p.source).not.toMatch(/memory|SCIENCE/i);
+    }
+  });
+});
+
 describe('arm geometry', () => {
   it('follows ln(R/Rref) = −(β − βref) tan ψ', () => {
     // Reid et al. 2014 log-spiral form
@@ -155,7 +210,7 @@ describe('offsets from arms', () => {
 
 describe('arm loci in the longitude–velocity plane', () => {
   it('agree with the kinematic model of the same curve', () => {
-    // SCIENCE.md §5: loci follow from the same rotation curve (forward model as oracle)
+    // docs/methods.md, "Spiral arms": loci follow from the same rotation curve (forward model as oracle)
     const curve = makeRotationCurve('reid-2014');
     const arm = reid14.arms.find((a) => a.name === 'Sagittarius') as ArmSpec;
     const locus = armLocusLv(arm, curve, 2);

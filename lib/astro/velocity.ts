@@ -9,7 +9,7 @@ const DEG = Math.PI / 180;
 /** Speed of light in km/s (exact, SI definition of the metre). */
 export const SPEED_OF_LIGHT_KMS = 299792.458;
 
-/** Rest frequencies in Hz: HI 21 cm hyperfine line and CO J=1–0 (standard line lists; from memory). */
+/** Rest frequencies in Hz: HI 21 cm hyperfine line and CO J=1–0 (standard line lists; docs/methods.md, "Velocities"). */
 export const REST_FREQUENCY_HZ = { HI: 1420405751.768, CO_1_0: 115271201800 } as const;
 
 /** Solar motion relative to a local standard of rest: U toward l = 0, V toward l = 90°, W toward the north Galactic pole (km/s). */

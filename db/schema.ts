@@ -314,7 +314,13 @@ export const complexMembers = mysqlTable(
   ],
 );
 
-/** An ordering analysis of a link run: its parameters and, once done, its result. */
+export const ANALYSIS_KINDS = ['milky-way', 'external-galaxy'] as const;
+
+/**
+ * An ordering analysis: its parameters and, once done, its result. A Milky-Way analysis reads a
+ * link run; an external-galaxy analysis reads a link run's complexes or catalogs directly
+ * (`catalogIds`, with no run).
+ */
 export const analyses = mysqlTable(
   'analyses',
   {
@@ -322,9 +328,9 @@ export const analyses = mysqlTable(
     projectId: id('project_id')
       .notNull()
       .references(() => projects.id, { onDelete: 'cascade' }),
-    runId: id('run_id')
-      .notNull()
-      .references(() => linkRuns.id, { onDelete: 'cascade' }),
+    kind: mysqlEnum('kind', ANALYSIS_KINDS).notNull().default('milky-way'),
+    runId: id('run_id').references(() => linkRuns.id, { onDelete: 'cascade' }),
+    catalogIds: json('catalog_ids').$type<string[]>(),
     status: mysqlEnum('status', RUN_STATUSES).notNull().default('queued'),
     progress: double('progress').notNull().default(0),
     params: json('params').$type<Record<string, unknown>>().notNull(),

@@ -2,3 +2,4 @@
 import './ingest';
 import './link-run';
 import './analysis';
+import './external-analysis';

@@ -26,6 +26,7 @@ import { writeAnalysisComplexes } from './analysis-complexes';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
 import { toolCurve } from '@/lib/calculators';
+import type { ExternalAnalysisJson } from './external-analyses';
 
 const customArmSchema = z.object({
   name: z.string().trim().min(1).max(60),
@@ -189,6 +190,8 @@ async function loadComplexes(runId: string, catalogIds: string[]): Promise<Order
 export async function executeAnalysis(analysisId: string, progress: (f: number) => Promise<void>) {
   const [a] = await db.select().from(analyses).where(eq(analyses.id, analysisId));
   if (!a) throw new Error(`analysis ${analysisId} no longer exists`);
+  // Milky-Way analyses always read a link run; only external-galaxy ones may have none.
+  if (!a.runId) throw new Error(`analysis ${analysisId} has no link run`);
   await db
     .update(analyses)
     .set({ status: 'running', error: null })
@@ -234,7 +237,9 @@ function analysisJson(
   const result = a.status === 'done' ? (a.result as Record<string, unknown> | null) : null;
   return {
     id: a.id,
+    kind: a.kind,
     runId: a.runId,
+    catalogIds: a.catalogIds ?? null,
     runName: extra.runName,
     status: a.status,
     progress: a.status === 'done' ? 1 : (extra.progress ?? a.progress),
@@ -254,19 +259,17 @@ export async function listAnalyses(projectId: string) {
   const rows = await db
     .select({ a: analyses, runName: linkRuns.name, creatorName: users.name })
     .from(analyses)
-    .innerJoin(linkRuns, eq(linkRuns.id, analyses.runId))
+    .leftJoin(linkRuns, eq(linkRuns.id, analyses.runId))
     .leftJoin(users, eq(users.id, analyses.createdBy))
     .where(eq(analyses.projectId, projectId))
     .orderBy(desc(analyses.createdAt));
   return rows.map(({ a, runName, creatorName }) => {
-    const r = a.result as {
-      gasToStars?: { medianAcrossKpc?: number; pValue?: number };
-      delayMyr?: { median?: number };
-    } | null;
     const full = analysisJson(a, { runName, creatorName });
     return {
       id: full.id,
+      kind: full.kind,
       runId: full.runId,
+      catalogIds: full.catalogIds,
       runName: full.runName,
       status: full.status,
       progress: full.progress,
@@ -275,16 +278,30 @@ export async function listAnalyses(projectId: string) {
       createdAt: full.createdAt,
       finishedAt: full.finishedAt,
       createdBy: full.createdBy,
-      summary:
-        a.status === 'done' && r
-          ? {
-              gasToStarsMedianKpc: r.gasToStars?.medianAcrossKpc ?? null,
-              pValue: r.gasToStars?.pValue ?? null,
-              delayMedianMyr: r.delayMyr?.median ?? null,
-            }
-          : null,
+      summary: a.status === 'done' && a.result ? analysisSummary(a) : null,
     };
   });
+}
+
+/** The list's one-line summary: the headline numbers of either kind of analysis. */
+function analysisSummary(a: AnalysisRow) {
+  if (a.kind === 'external-galaxy') {
+    const r = a.result as Partial<ExternalAnalysisJson>;
+    return {
+      patternSpeedKmsKpc: r.fit?.patternSpeedKmsKpc ?? null,
+      timescaleMyr: r.fit?.timescaleMyr ?? null,
+      nullTestPValue: r.nullTest?.pValue ?? null,
+    };
+  }
+  const r = a.result as {
+    gasToStars?: { medianAcrossKpc?: number; pValue?: number };
+    delayMyr?: { median?: number };
+  };
+  return {
+    gasToStarsMedianKpc: r.gasToStars?.medianAcrossKpc ?? null,
+    pValue: r.gasToStars?.pValue ?? null,
+    delayMedianMyr: r.delayMyr?.median ?? null,
+  };
 }
 
 export async function getAnalysis(analysisId: string) {
@@ -296,7 +313,7 @@ export async function getAnalysis(analysisId: string) {
       jobProgress: jobs.progress,
     })
     .from(analyses)
-    .innerJoin(linkRuns, eq(linkRuns.id, analyses.runId))
+    .leftJoin(linkRuns, eq(linkRuns.id, analyses.runId))
     .leftJoin(users, eq(users.id, analyses.createdBy))
     .leftJoin(jobs, eq(jobs.id, analyses.jobId))
     .where(eq(analyses.id, analysisId));

@@ -5,6 +5,7 @@ import { auditLog, projectMembers, projects } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import type { ProjectRole } from '@/lib/auth/roles';
 import { notFound } from '@/lib/http/errors';
+import { projectTargetSchema } from '@/lib/schemas/analyses';
 
 export const projectNameSchema = z.string().trim().min(1, 'Give the project a name.').max(200);
 export const createProjectSchema = z.object({
@@ -15,7 +16,8 @@ export const updateProjectSchema = z
   .object({
     name: projectNameSchema.optional(),
     description: z.string().trim().max(2000).nullable().optional(),
-    settings: z.record(z.string(), z.unknown()).optional(),
+    /** Free-form settings of the pages; `target` (Milky Way or an external galaxy) is checked. */
+    settings: z.looseObject({ target: projectTargetSchema.optional() }).optional(),
   })
   .strict();
 

@@ -1,9 +1,10 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '@/db/client';
-import { catalogs, jobs, linkRuns, users } from '@/db/schema';
+import { catalogs, jobs, linkRuns, projects, users } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
+import { projectTargetSchema } from '@/lib/schemas/analyses';
 import { requestCancel } from './jobs';
 
 /** The link-run body of API.md, with the options a careful user needs made explicit. */
@@ -147,6 +148,44 @@ export type RunJson = {
 
 type CatalogNames = Map<string, { id: string; name: string; kind: string }>;
 
+/** The project's context for its runs: catalog names and, for an external galaxy, its distance. */
+type RunContext = { cats: CatalogNames; galaxyDistanceMpc: number | null };
+
+async function runContext(projectId: string): Promise<RunContext> {
+  const [p] = await db
+    .select({ settings: projects.settings })
+    .from(projects)
+    .where(eq(projects.id, projectId));
+  const target = projectTargetSchema.safeParse(p?.settings?.target);
+  const galaxyDistanceMpc =
+    target.success && target.data.kind === 'external-galaxy'
+      ? target.data.galaxy.distanceMpc
+      : null;
+  return { cats: await catalogNames(projectId), galaxyDistanceMpc };
+}
+
+const ARCSEC_PER_RAD = 206_264.806;
+
+/**
+ * The link radius in pc at an external galaxy's distance (small angles): the fixed radius, or
+ * for a scaled radius its floor and the widest link, read from the separation histogram.
+ */
+function radiusPc(
+  params: Record<string, unknown>,
+  summary: Record<string, unknown>,
+  distanceMpc: number,
+) {
+  const radius = params.radius as { mode?: string; arcsec?: number; minArcsec?: number };
+  const edges = (summary.histograms as { separationArcsec?: { edges?: number[] } } | undefined)
+    ?.separationArcsec?.edges;
+  const [lo, hi] =
+    radius?.mode === 'fixed'
+      ? [radius.arcsec ?? 0, radius.arcsec ?? 0]
+      : [radius?.minArcsec ?? 0, edges?.[edges.length - 1] ?? radius?.minArcsec ?? 0];
+  const pcPerArcsec = (distanceMpc * 1e6) / ARCSEC_PER_RAD;
+  return { distanceMpc, minPc: lo * pcPerArcsec, maxPc: Math.max(lo, hi) * pcPerArcsec };
+}
+
 /** The names and classes of a project's catalogs, read once per request (not once per run). */
 async function catalogNames(projectId: string): Promise<CatalogNames> {
   const cats = await db
@@ -162,7 +201,8 @@ type RunRow = {
   jobProgress: number | null;
 };
 
-function toRunJson({ r, creatorName, jobProgress }: RunRow, cats: CatalogNames): RunJson {
+function toRunJson({ r, creatorName, jobProgress }: RunRow, ctx: RunContext): RunJson {
+  const { cats } = ctx;
   // A running job reports progress on its own row; the run's copy is final only once done.
   const progress =
     r.status === 'done' ? 1 : r.status === 'running' ? (jobProgress ?? r.progress) : r.progress;
@@ -176,13 +216,20 @@ function toRunJson({ r, creatorName, jobProgress }: RunRow, cats: CatalogNames):
     catalogs: r.catalogIds.map(
       (id) => cats.get(id) ?? { id, name: '(deleted catalog)', kind: 'other' },
     ),
-    summary: r.status === 'done' ? (r.summary ?? null) : null,
+    summary: r.status === 'done' && r.summary ? runSummary(r, ctx) : null,
     error: r.error,
     createdAt: r.createdAt.toISOString(),
     startedAt: r.startedAt?.toISOString() ?? null,
     finishedAt: r.finishedAt?.toISOString() ?? null,
     createdBy: r.createdBy ? { id: r.createdBy, name: creatorName ?? '' } : null,
   };
+}
+
+/** The stored summary, with the radius in pc when the project's target is an external galaxy. */
+function runSummary(r: typeof linkRuns.$inferSelect, ctx: RunContext): Record<string, unknown> {
+  const summary = r.summary ?? {};
+  if (ctx.galaxyDistanceMpc === null) return summary;
+  return { ...summary, radiusPc: radiusPc(r.params, summary, ctx.galaxyDistanceMpc) };
 }
 
 const runColumns = { r: linkRuns, creatorName: users.name, jobProgress: jobs.progress };
@@ -195,8 +242,8 @@ export async function listRuns(projectId: string): Promise<RunJson[]> {
     .leftJoin(jobs, eq(jobs.id, linkRuns.jobId))
     .where(eq(linkRuns.projectId, projectId))
     .orderBy(desc(linkRuns.createdAt));
-  const cats = await catalogNames(projectId);
-  return rows.map((x) => toRunJson(x, cats));
+  const ctx = await runContext(projectId);
+  return rows.map((x) => toRunJson(x, ctx));
 }
 
 export async function getRun(runId: string): Promise<RunJson> {
@@ -207,7 +254,7 @@ export async function getRun(runId: string): Promise<RunJson> {
     .leftJoin(jobs, eq(jobs.id, linkRuns.jobId))
     .where(eq(linkRuns.id, runId));
   if (!x) throw notFound('Link run');
-  return toRunJson(x, await catalogNames(x.r.projectId));
+  return toRunJson(x, await runContext(x.r.projectId));
 }
 
 /** The project of a run, for the access check (404 when there is no such run). */

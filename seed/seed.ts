@@ -13,6 +13,7 @@ import { updateProject } from '@/lib/services/projects';
 import { getUserByEmail } from '@/lib/services/users';
 import { ensureDemoAccounts } from '@/lib/services/seed-accounts';
 import { DEMO_CATALOGS } from './demo-catalogs';
+import { seedExternalDemo } from './external-demo';
 import { DEFAULT_MODEL, generateGalaxy, writeDemoFiles } from './generator';
 
 /**
@@ -160,6 +161,7 @@ async function main() {
     await seedCatalogs(projectId, editor.id);
     const runId = await seedRun(projectId, editor.id);
     await seedAnalysis(projectId, editor.id, owner.id, runId);
+    console.log(`[seed] external-galaxy demo project ${await seedExternalDemo()} ready`);
   }
   console.log(`[seed] demo project ${projectId} ready`);
   await closeDb();

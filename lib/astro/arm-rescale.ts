@@ -3,7 +3,7 @@
  * frame built with the fit's own R0; used with a curve of another R0, the Sun sits at a different
  * place relative to the ridges. Rescaling multiplies every radius of the arm model by
  * toR0/fromR0 (pitch angles and azimuths kept), so that each ridge keeps its radius in units of
- * R0 — a first-order correction, not a refit (docs/methods.md, "Arms").
+ * R0 — a first-order correction, not a refit (docs/methods.md, "Spiral arms").
  */
 
 import type { ArmSpec } from './arms';

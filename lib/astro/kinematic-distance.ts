@@ -562,7 +562,7 @@ function makeScratch(draws: number): McScratch {
 }
 
 /**
- * Monte Carlo kinematic distance (docs/methods.md, "Uncertainties"): draws v ~ N(v_LSR, σ_meas² + σ_stream²),
+ * Monte Carlo kinematic distance (docs/methods.md, "Kinematic distances"): draws v ~ N(v_LSR, σ_meas² + σ_stream²),
  * solves each draw, and reports the median and 16th–84th percentile interval of the near root,
  * the far root (which includes single outer-Galaxy roots) and R over the draws where each
  * exists, with the fraction of such draws. Draws beyond the terminal velocity count at the
@@ -689,7 +689,7 @@ export type AmbiguityResolution = {
 export const DEFAULT_SCALE_HEIGHT_KPC = 0.06;
 
 /**
- * Chooses between the near and far kinematic roots (docs/methods.md, "Near or far"; common practice):
+ * Chooses between the near and far kinematic roots (docs/methods.md, "Kinematic distances"; common practice):
  * 1. no root → 'unresolved'; one root (outer Galaxy) → 'single'; equal roots → 'tangent';
  * 2. with an independent distance (parallax or photometric, kpc) → the root closer to it, unless
  *    its error bar does not separate them (the rejected root is not farther from it by more than
@@ -793,7 +793,7 @@ function intervalColumns(n: number): RootIntervalColumns {
 
 /**
  * Monte Carlo 68 % intervals of the kinematic roots for many sources (docs/methods.md,
- * "Monte Carlo intervals"). Draw j moves every velocity by its own 1σ (`vErrKms`, km/s,
+ * "Kinematic distances"). Draw j moves every velocity by its own 1σ (`vErrKms`, km/s,
  * measurement and streaming together; one value or a column) and, when `drawConstants` is on
  * and the curve publishes them, shares one R0 ~ N(R0, σ_R0) and Θ0 ~ N(Θ0, σ_Θ0) across all
  * sources (the same Galaxy for every source of a draw; {@link curveWithConstants}). Each draw

@@ -12,6 +12,7 @@ import {
   linkRuns,
   users,
 } from '@/db/schema';
+import { rescaleArms } from '@/lib/astro/arm-rescale';
 import { ARM_MODEL_PRESETS, type ArmSpec } from '@/lib/astro/arms';
 import { ROTATION_CURVE_PRESETS } from '@/lib/astro/rotation-curves';
 import { newId } from '@/lib/auth/secrets';
@@ -20,51 +21,17 @@ import {
   runOrderingAnalysis,
   type OrderingComplex,
   type OrderingMember,
+  type OrderingResult,
   type OrderingSettings,
 } from '@/lib/ordering';
 import { writeAnalysisComplexes } from './analysis-complexes';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
 import { toolCurve } from '@/lib/calculators';
+import { analysisSchema, type AnalysisParams } from '@/lib/schemas/analyses';
 import type { ExternalAnalysisJson } from './external-analyses';
 
-const customArmSchema = z.object({
-  name: z.string().trim().min(1).max(60),
-  Rref: z.number().positive().max(50),
-  betaRefDeg: z.number().min(-720).max(720),
-  pitchDeg: z.number().gt(-60).lt(60),
-  betaMinDeg: z.number().min(-720).max(720),
-  betaMaxDeg: z.number().min(-720).max(720),
-});
-
-/** The ordering-analysis body of API.md, plus the settings SCIENCE.md §4 makes editable. */
-export const analysisSchema = z.object({
-  runId: z.string().min(1),
-  curve: z.object({
-    name: z.enum(['flat', 'brand-blitz-1993', 'reid-2014', 'reid-2019']),
-    R0: z.number().positive().max(20).optional(),
-    theta0: z.number().positive().max(400).optional(),
-  }),
-  arms: z.union([
-    z.object({ preset: z.string().min(1) }),
-    z.object({ custom: z.array(customArmSchema).min(1, 'Give at least one arm.').max(12) }),
-  ]),
-  patternSpeed: z.number().min(0).max(200),
-  resamples: z
-    .number()
-    .int()
-    .min(2000, 'Use at least 2 000 resamples (SCIENCE.md §6).')
-    .max(20_000)
-    .default(2000),
-  seed: z.number().int().default(1),
-  armWidthKpc: z.number().positive().max(5).default(1),
-  sigmaStreamKms: z.number().min(0).max(50).default(7),
-  scaleHeightKpc: z.number().positive().max(2).default(0.06),
-  velocityFrom: z.enum(['gas', 'all']).default('gas'),
-  mcDraws: z.number().int().min(50).max(5000).default(200),
-});
-
-export type AnalysisParams = z.infer<typeof analysisSchema>;
+export { analysisSchema, type AnalysisParams } from '@/lib/schemas/analyses';
 
 /** The arm model of a request: a published preset by key, or the user's own arms. */
 export function armsOf(params: AnalysisParams): { arms: ArmSpec[]; label: string; source: string } {
@@ -89,18 +56,33 @@ export function armsOf(params: AnalysisParams): { arms: ArmSpec[]; label: string
   return { arms, label: 'custom arms', source: 'defined in this project' };
 }
 
-export function orderingSettings(params: AnalysisParams): OrderingSettings {
+/** The analysis settings of a request; `linkRadiusArcsec` comes from the link run. */
+export function orderingSettings(
+  params: AnalysisParams,
+  linkRadiusArcsec: [number, number] | null = null,
+): OrderingSettings {
+  const curve = toolCurve(params.curve.name, params.curve.R0, params.curve.theta0);
+  const model = 'preset' in params.arms ? ARM_MODEL_PRESETS[params.arms.preset] : null;
+  const rescale =
+    'preset' in params.arms && params.arms.rescaleToCurveR0 === true && model !== null;
+  const arms = armsOf(params).arms;
   return {
-    curve: toolCurve(params.curve.name, params.curve.R0, params.curve.theta0),
-    arms: armsOf(params).arms,
+    curve,
+    arms: rescale ? rescaleArms(arms, model.R0Kpc, curve.R0Kpc) : arms,
     armWidthKpc: params.armWidthKpc,
-    patternSpeedKmsKpc: params.patternSpeed,
+    patternSpeedKmsKpc: params.patternSpeed ?? null,
     sigmaStreamKms: params.sigmaStreamKms,
+    R0ErrKpc: params.curve.R0Err ?? curve.R0ErrKpc ?? 0,
+    theta0ErrKms: params.curve.theta0Err ?? curve.theta0ErrKms ?? 0,
     scaleHeightKpc: params.scaleHeightKpc,
+    nearFar: params.nearFar,
     velocityFrom: params.velocityFrom,
     resamples: params.resamples,
     seed: params.seed,
     mcDraws: params.mcDraws,
+    armsR0Kpc: rescale ? curve.R0Kpc : (model?.R0Kpc ?? null),
+    tangentNearTerminalKms: params.tangentNearTerminalKms ?? null,
+    linkRadiusArcsec,
   };
 }
 
@@ -186,6 +168,27 @@ async function loadComplexes(runId: string, catalogIds: string[]): Promise<Order
   return [...byId.values()];
 }
 
+/**
+ * The link radius of a run (arcsec): the fixed radius, or for a scaled radius its floor and the
+ * widest link the run made.
+ */
+async function linkRadiusArcsec(
+  runId: string,
+  params: Record<string, unknown>,
+): Promise<[number, number] | null> {
+  const radius = params.radius as
+    { mode?: string; arcsec?: number; minArcsec?: number } | undefined;
+  if (radius?.mode === 'fixed' && typeof radius.arcsec === 'number')
+    return [radius.arcsec, radius.arcsec];
+  const [rows] = await pool().query<RowDataPacket[]>(
+    'SELECT MAX(sep_arcsec) AS widest FROM links WHERE run_id = ?',
+    [runId],
+  );
+  const widest = Number(rows[0]?.widest);
+  if (!(widest > 0)) return null;
+  return [Math.min(radius?.minArcsec ?? widest, widest), widest];
+}
+
 /** Runs an analysis job; the analysis turns `done` last, with its whole result in one write. */
 export async function executeAnalysis(analysisId: string, progress: (f: number) => Promise<void>) {
   const [a] = await db.select().from(analyses).where(eq(analyses.id, analysisId));
@@ -199,9 +202,10 @@ export async function executeAnalysis(analysisId: string, progress: (f: number) 
   const run = await requireDoneRun(a.runId);
   const params = analysisSchema.parse(a.params);
   const input = await loadComplexes(a.runId, run.catalogIds);
+  const radius = await linkRadiusArcsec(a.runId, run.params);
   await progress(0.1);
   let last = 0;
-  const result = runOrderingAnalysis(input, orderingSettings(params), (f) => {
+  const result = runOrderingAnalysis(input, orderingSettings(params, radius), (f) => {
     if (Date.now() - last > 500) {
       last = Date.now();
       void progress(0.1 + 0.85 * f).catch(() => undefined);
@@ -250,8 +254,6 @@ function analysisJson(
     createdBy: a.createdBy ? { id: a.createdBy, name: extra.creatorName ?? '' } : null,
     result,
     classes: result?.classes ?? null,
-    gasToStars: result?.gasToStars ?? null,
-    delayMyr: result?.delayMyr ?? null,
   };
 }
 
@@ -293,14 +295,12 @@ function analysisSummary(a: AnalysisRow) {
       nullTestPValue: r.nullTest?.pValue ?? null,
     };
   }
-  const r = a.result as {
-    gasToStars?: { medianAcrossKpc?: number; pValue?: number };
-    delayMyr?: { median?: number };
-  };
+  const r = a.result as Partial<OrderingResult>;
   return {
-    gasToStarsMedianKpc: r.gasToStars?.medianAcrossKpc ?? null,
-    pValue: r.gasToStars?.pValue ?? null,
-    delayMedianMyr: r.delayMyr?.median ?? null,
+    youngMinusGasKpc: r.youngMinusGas?.medianOffsetKpc ?? null,
+    youngMinusGasCi95: r.youngMinusGas?.ci95 ?? null,
+    patternSpeedKmsKpc: r.patternFit?.patternSpeedKmsKpc ?? null,
+    timescaleMyr: r.patternFit?.timescaleMyr ?? null,
   };
 }
 

@@ -8,18 +8,25 @@ import { BASE_URL, PASSWORD, newUser, type Client } from '../helpers/client';
 import { launchBrowser } from '../helpers/browser';
 import { upload, waitForCatalog } from '../helpers/catalogs';
 
+/** The parts of the API's `OrderingResult` (lib/ordering/types.ts) the page is checked against. */
 type Result = {
-  gasToStars: {
-    n: number;
-    medianAcrossKpc: number | null;
-    ci95: [number, number] | null;
-    pValue: number | null;
-  };
+  headline: string[];
+  youngMinusGas: { medianOffsetKpc: number | null; ci95: [number, number] | null };
   classes: { kind: string }[];
-  complexes: { id: string; used: boolean }[];
+  complexes: { id: string; used: boolean; distCi95: [number, number] | null }[];
   sources: { kind: string }[];
-  corotationKpc: number | null;
+  tangents: { offsets: unknown[] }[];
+  radialBins: { dphiDeg: number | null }[];
+  patternFit: { line: unknown } | null;
+  interpretation: { source: 'fitted' | 'assumed' | null; corotationKpc: number | null };
+  intraComplex: { linkRadiusPc: [number, number] | null };
+  distances: { draws: number };
 };
+
+/** Radians per arcsecond: π / (180 · 3600) (exact). */
+const RAD_PER_ARCSEC = Math.PI / 648_000;
+/** The link run's radius (arcsec), fixed for the whole run. */
+const LINK_RADIUS_ARCSEC = 300;
 
 /** The CO file of the demo layout: semicolon-separated, Galactic, LSR radio velocities. */
 const CO_MAPPING = {
@@ -89,10 +96,10 @@ describe('ordering analysis in the browser', () => {
   });
 
   it(
-    'runs an analysis of a synthetic galaxy with its own arms and shows the recovered ordering',
-    { timeout: 360_000 },
+    'runs an analysis of a synthetic galaxy with its own arms, an assumed pattern speed, and shows the measured ordering, tangents, Δφ(R) and the intra-complex offsets apart',
+    { timeout: 600_000 },
     async () => {
-      const galaxy = generateGalaxy({ seed: 7, complexes: 150, interlopers: 0 });
+      const galaxy = generateGalaxy({ seed: 7, complexes: 600, interlopers: 0 });
       const written = await writeDemoFiles(galaxy, dir);
 
       const { client, email } = await newUser('e2e-ordering', 'Ordering Analyst');
@@ -128,7 +135,7 @@ describe('ordering analysis in the browser', () => {
         `/api/projects/${projectId}/link-runs`,
         {
           catalogIds,
-          radius: { mode: 'fixed', arcsec: 300 },
+          radius: { mode: 'fixed', arcsec: LINK_RADIUS_ARCSEC },
           velocity: { mode: 'fixed', kms: 5 },
           linkMode: 'all',
           chanceTrials: 0,
@@ -155,12 +162,16 @@ describe('ordering analysis in the browser', () => {
 
       await page.goto(`/projects/${projectId}/arms`);
       await page.getByText('No ordering analysis yet.', { exact: false }).waitFor();
-      // The generator's galaxy rotates on the Reid et al. (2014) curve, the page's default.
-      expect(DEFAULT_MODEL.rotationCurve).toBe('reid-2014');
+      // The generator rotates on a curve of its own (seed/generator/curve.ts); the analysis uses
+      // the page's default, Reid et al. (2014), whose published 1σ of R0 and Θ0 prefill the form.
       expect(await page.getByLabel('Rotation curve').inputValue()).toBe('reid-2014');
-      await page
-        .getByLabel('Pattern speed (km/s/kpc)')
-        .fill(String(DEFAULT_MODEL.patternSpeedKmsKpc));
+      expect(await page.getByLabel('R0 uncertainty, 1σ (kpc)').inputValue()).toBe('0.16'); // Reid et al. (2014): R0 = 8.34 ± 0.16 kpc
+      expect(await page.getByLabel('Θ0 uncertainty, 1σ (km/s)').inputValue()).toBe('8'); // Reid et al. (2014): Θ0 = 240 ± 8 km/s
+      expect(await page.getByLabel('Near/far rule').inputValue()).toBe('probabilistic');
+      // No pattern speed is assumed until one is typed; then it is an assumption.
+      const assumedField = page.getByLabel('Assumed pattern speed (optional)');
+      expect(await assumedField.inputValue()).toBe('');
+      await assumedField.fill(String(DEFAULT_MODEL.patternSpeedKmsKpc));
 
       // The generator's two arms as custom arms, typed into the table; the preview follows.
       await page.getByRole('radio', { name: 'Custom arms' }).check();
@@ -200,8 +211,9 @@ describe('ordering analysis in the browser', () => {
       expect(response.status()).toBe(202);
       expect(response.request().postDataJSON()).toMatchObject({
         runId,
-        curve: { name: 'reid-2014' },
+        curve: { name: 'reid-2014', R0Err: 0.16, theta0Err: 8 },
         patternSpeed: DEFAULT_MODEL.patternSpeedKmsKpc,
+        nearFar: 'probabilistic',
         resamples: 2000,
         seed: 7,
         arms: {
@@ -219,9 +231,10 @@ describe('ordering analysis in the browser', () => {
       await page.waitForURL(new RegExp(`analysis=${analysisId}`));
 
       const status = page.getByTestId('analysis-status');
-      await status.filter({ hasText: /^(done|failed)$/ }).waitFor({ timeout: 180_000 });
+      await status.filter({ hasText: /^(done|failed)$/ }).waitFor({ timeout: 420_000 });
       expect(await status.textContent()).toBe('done');
-      expect(await page.getByRole('progressbar').count()).toBe(0);
+      // The list of analyses polls on its own and follows within a second.
+      await expect.poll(() => page.getByRole('progressbar').count()).toBe(0);
 
       const got = await client.json<{ analysis: { result: Result } }>(
         'GET',
@@ -229,41 +242,85 @@ describe('ordering analysis in the browser', () => {
       );
       expect(got.status).toBe(200);
       const result = got.body.analysis.result;
-      const g = result.gasToStars;
-      // Injected truth (seed/generator/params.ts, intraShiftPc): HII and OB members sit 2.5 and 5 pc
-      // downstream of their complex's centre and CO members 2.5 pc upstream, so young stars lead
-      // their gas by 5–7.5 pc along the flow; the analysis measures only the part across the line of sight and the
-      // arm, so the recovered downstream median lies between 0 and that (twice 5 pc allowed).
-      expect(g.medianAcrossKpc).not.toBeNull();
-      expect(g.ci95![0]).toBeGreaterThan(0);
-      expect(g.medianAcrossKpc!).toBeLessThan(0.01);
-      const headline = (await page.getByTestId('ordering-headline').textContent())!;
-      const said = headline.match(
-        /^Young stars lie ([\d.]+) pc ahead of their gas across the arms in the direction of the flow \(.*95 % interval ([\d.]+) to ([\d.]+) pc, n = (\d+) complexes\): the gas is upstream/,
-      );
-      expect(said, headline).not.toBeNull();
-      // Each number printed in pc matches the API's kpc value to within its last printed digit.
-      const printedAs = (shown: string, kpc: number) => {
-        const decimals = shown.split('.')[1]?.length ?? 0;
-        expect(Math.abs(Number(shown) - kpc * 1000)).toBeLessThanOrEqual(
-          0.5 * 10 ** -decimals + 1e-9,
-        );
-      };
-      printedAs(said![1], g.medianAcrossKpc!);
-      printedAs(said![2], g.ci95![0]);
-      printedAs(said![3], g.ci95![1]);
-      expect(Number(said![4])).toBe(g.n);
-      expect(await page.getByTestId('headline-median').textContent()).toBe(said![1]);
+      const y = result.youngMinusGas;
+      expect(y.medianOffsetKpc).not.toBeNull();
+      expect(y.ci95).not.toBeNull();
 
-      // The tables and views of the result.
+      // The headline: the result's own sentences, the first the young-minus-gas offset with its
+      // interval, each number as the API has it (headline.ts rounds to whole pc).
+      const headline = page.getByTestId('ordering-headline');
+      const sentences = await headline.locator('p').allTextContents();
+      expect(sentences).toEqual(result.headline);
+      const said = sentences[0].match(
+        /^Young stars \(HII, OB\) (?:lie (\d+) pc (ahead of|behind) the gas \(HI, CO\) across the arms, in the sense of rotation|and gas \(HI, CO\) are not separated across the arms beyond the errors: young minus gas (-?\d+) pc,) ?:? ?95 % interval (-?\d+) to (-?\d+) pc \((\d+) complexes, each distance drawn (\d+) times\)\.$/,
+      );
+      expect(said, sentences[0]).not.toBeNull();
+      const [, aheadPc, sense, zeroPc, loPc, hiPc, , draws] = said!;
+      const medianPc =
+        aheadPc !== undefined ? Number(aheadPc) * (sense === 'behind' ? -1 : 1) : Number(zeroPc);
+      // `+ 0` turns a rounded −0 into the 0 the sentence prints.
+      const wholePc = (kpc: number) => Math.round(kpc * 1000) + 0;
+      expect(medianPc).toBe(wholePc(y.medianOffsetKpc!));
+      expect(Number(loPc)).toBe(wholePc(y.ci95![0]));
+      expect(Number(hiPc)).toBe(wholePc(y.ci95![1]));
+      expect(Number(draws)).toBe(result.distances.draws);
+
+      // The assumed pattern speed is labelled as an assumption; the interpretation says which
+      // pattern speed (fitted takes precedence over assumed) it used.
+      expect(await page.getByTestId('assumed-pattern-speed').textContent()).toBe(
+        `assumed: ${DEFAULT_MODEL.patternSpeedKmsKpc.toFixed(1)} km/s/kpc`,
+      );
+      expect(await page.getByTestId('interpretation-source').textContent()).toBe(
+        `pattern speed: ${result.interpretation.source ?? 'none'}`,
+      );
+      expect(result.interpretation.source).not.toBeNull();
+
+      // The tables of the result: classes plus the young-minus-gas row, and the tangent offsets.
       expect(
         await page.getByRole('table', { name: 'Offsets by class' }).locator('tbody tr').count(),
-      ).toBe(result.classes.length);
+      ).toBe(result.classes.length + 1);
+      const tangentTable = page.getByRole('table', { name: 'Tangent-point offsets' });
+      expect(await tangentTable.isVisible()).toBe(true);
+      const offsets = result.tangents.reduce((n, t) => n + t.offsets.length, 0);
+      expect(await tangentTable.locator('tbody tr').count()).toBe(Math.max(1, offsets));
+      expect(offsets).toBeGreaterThan(0);
+
+      // Δφ(R): one point per ring with a value, and the fitted line when the fit gave one.
+      const dphi = page.getByRole('img', {
+        name: 'Azimuthal offset of young stars from gas against radius',
+      });
+      expect(await dphi.isVisible()).toBe(true);
+      const rings = result.radialBins.filter((b) => b.dphiDeg !== null).length;
+      expect(rings).toBeGreaterThan(0);
+      expect(await dphi.getByTestId('dphi-ring').count()).toBe(rings);
+      expect(await dphi.getByTestId('dphi-model-line').count()).toBe(
+        result.patternFit?.line ? 1 : 0,
+      );
+
+      // The intra-complex section stands apart and prints the link radius in pc, which must lie
+      // within 300″ at the nearest and farthest distance intervals of the complexes (small-angle
+      // geometry, exact to far below a printed digit).
+      const intra = page.getByTestId('intra-complex');
+      expect(await intra.isVisible()).toBe(true);
+      const radius = (await intra.getByTestId('intra-link-radius').textContent())!;
+      const r = radius.match(/^([\d.]+) to ([\d.]+) pc$/);
+      expect(r, radius).not.toBeNull();
+      const lr = result.intraComplex.linkRadiusPc!;
+      // Printed with one decimal: within half of its last digit.
+      expect(Math.abs(Number(r![1]) - lr[0])).toBeLessThanOrEqual(0.05 + 1e-9);
+      expect(Math.abs(Number(r![2]) - lr[1])).toBeLessThanOrEqual(0.05 + 1e-9);
+      const ci95s = result.complexes.flatMap((c) => (c.distCi95 ? [c.distCi95] : []));
+      const nearestKpc = Math.min(...ci95s.map((c) => c[0]));
+      const farthestKpc = Math.max(...ci95s.map((c) => c[1]));
+      expect(lr[0]).toBeGreaterThanOrEqual(LINK_RADIUS_ARCSEC * RAD_PER_ARCSEC * nearestKpc * 1000);
+      expect(lr[1]).toBeLessThanOrEqual(LINK_RADIUS_ARCSEC * RAD_PER_ARCSEC * farthestKpc * 1000);
+      expect(lr[0]).toBeLessThanOrEqual(lr[1]);
+
       const map = page.getByTestId('ordering-face-on');
       expect(await page.getByRole('img', { name: 'Face-on map of the complexes' }).count()).toBe(1);
       expect(await map.locator('svg polyline').count()).toBe(DEFAULT_ARMS.length);
       expect(await map.getByTestId('corotation-circle').count()).toBe(
-        result.corotationKpc === null ? 0 : 1,
+        result.interpretation.corotationKpc === null ? 0 : 1,
       );
       // One marker per HII source, plus the legend's (HII orange, lib/tracers.ts).
       const hiiSources = result.sources.filter((s) => s.kind === 'hii').length;
@@ -325,7 +382,9 @@ describe('ordering analysis in the browser', () => {
       await list.getByRole('link', { name: /^Open the analysis of CO, HII and OB/ }).click();
       await page.waitForURL(new RegExp(`analysis=${analysisId}`));
       await page.getByTestId('ordering-headline').waitFor();
-      expect(await page.getByTestId('ordering-headline').textContent()).toBe(headline);
+      expect(await page.getByTestId('ordering-headline').locator('p').allTextContents()).toEqual(
+        sentences,
+      );
       await ctx.close();
     },
   );

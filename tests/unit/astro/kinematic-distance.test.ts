@@ -27,7 +27,7 @@ describe('flat rotation curve', () => {
   const flat = makeRotationCurve('flat', { R0Kpc: 8.5, theta0Kms: 220 });
 
   it('matches the closed form R = R0 Θ0 sin l / (Θ0 sin l + v) to 1e-6 kpc', () => {
-    // closed form for a flat curve (SCIENCE.md §4)
+    // closed form for a flat curve (docs/methods.md, "Kinematic distances")
     let checked = 0;
     for (let l = 1; l < 360; l += 7) {
       for (let v = -200; v <= 200; v += 9) {
@@ -50,7 +50,7 @@ describe('flat rotation curve', () => {
   });
 
   it('has v_t = 110 km/s and d_t = 7.36 kpc at l = 30°', () => {
-    // SCIENCE.md §4: l = 30°, R0 = 8.5, Θ0 = 220 → v_t = Θ0 (1 − sin l) = 110 km/s, d_t = R0 cos l
+    // docs/methods.md, "Kinematic distances": l = 30°, R0 = 8.5, Θ0 = 220 → v_t = Θ0 (1 − sin l) = 110 km/s, d_t = R0 cos l
     const kd = kinematicDistance(30, 0, 110, flat);
     expect(kd.tangentKpc).toBeCloseTo(7.36, 2);
     expect(kd.nearKpc).toBeCloseTo(7.361, 3);
@@ -60,7 +60,7 @@ describe('flat rotation curve', () => {
   });
 
   it('places velocities beyond the terminal velocity at the tangent point', () => {
-    // SCIENCE.md §4: beyond-terminal velocities are flagged and placed at the tangent point
+    // docs/methods.md, "Kinematic distances": beyond-terminal velocities are flagged and placed at the tangent point
     const kd = kinematicDistance(30, 0, 125, flat);
     expect(kd.flags).toContain('beyond-terminal');
     expect(kd.nearKpc).toBe(kd.tangentKpc);
@@ -100,7 +100,7 @@ describe('flat rotation curve', () => {
   });
 
   it('divides in-plane distances by cos b', () => {
-    // SCIENCE.md §4: line-of-sight distance = in-plane distance / cos b
+    // docs/methods.md, "Kinematic distances": line-of-sight distance = in-plane distance / cos b
     const b = 3;
     const v = vLsrAtKms(40, b, 3, flat);
     const kd = kinematicDistance(40, b, v, flat);
@@ -115,7 +115,7 @@ describe('flat rotation curve', () => {
 
 describe('every curve', () => {
   it('round-trips distance → v_LSR → distance across the disc, choosing near/far correctly', () => {
-    // brute-force oracle: the forward model v_LSR(d) of SCIENCE.md §4
+    // brute-force oracle: the forward model v_LSR(d) of docs/methods.md, "Kinematic distances"
     for (const name of MODEL_CURVES) {
       const curve = makeRotationCurve(name);
       const R0 = curve.R0Kpc;
@@ -261,7 +261,7 @@ describe('Monte Carlo distances', () => {
 
 describe('near/far ambiguity', () => {
   it('follows the documented rules', () => {
-    // SCIENCE.md §4 rules: independent distance first, else latitude with 2.5 scale heights
+    // docs/methods.md, "Kinematic distances", rules: independent distance first, else latitude with 2.5 scale heights
     expect(resolveAmbiguity({ nearKpc: null, farKpc: null, bDeg: 0 }).choice).toBe('unresolved');
     expect(resolveAmbiguity({ nearKpc: null, farKpc: 12, bDeg: 0 })).toMatchObject({
       choice: 'single',

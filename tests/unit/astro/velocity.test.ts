@@ -24,14 +24,14 @@ import {
 const D = Math.PI / 180;
 
 describe('LSR correction', () => {
-  it('uses the kinematic and dynamical solar motions of SCIENCE.md §2', () => {
+  it('uses the kinematic and dynamical solar motions of docs/methods.md, "Velocities"', () => {
     // common practice (standard solar motion); Schönrich, Binney & Dehnen 2010
     expect(KINEMATIC_LSR).toEqual({ uKms: 10.27, vKms: 15.32, wKms: 7.74 });
     expect(DYNAMICAL_LSR).toEqual({ uKms: 11.1, vKms: 12.24, wKms: 7.25 });
   });
 
   it('equals v + U cos l cos b + V sin l cos b + W sin b and inverts exactly', () => {
-    // formula of SCIENCE.md §2 (common practice)
+    // formula of docs/methods.md, "Velocities" (common practice)
     fc.assert(
       fc.property(
         fc.double({ min: -500, max: 500, noNaN: true }),
@@ -111,7 +111,7 @@ describe('velocity conventions', () => {
       3,
     );
     expect(REST_FREQUENCY_HZ.HI - f).toBeCloseTo(473796.36, 1);
-    // the 21 cm line (SCIENCE.md §6, common practice): λ = c/ν ≈ 0.2111 m
+    // the 21 cm line (common practice): λ = c/ν ≈ 0.2111 m
     expect((SPEED_OF_LIGHT_KMS * 1000) / REST_FREQUENCY_HZ.HI).toBeCloseTo(0.2111, 4);
     for (const conv of conventions) {
       expect(

@@ -37,7 +37,7 @@ export const ARM_MODEL_PRESETS: Readonly<Record<string, ArmModelPreset>> = Objec
   'reid-2014': {
     label: 'Reid et al. (2014) arms',
     source:
-      'Reid et al. (2014), ApJ 783, 130, Table 2 (R_ref, β_ref, ψ, β range, width; R0 = 8.34 kpc, abstract). Values as Table 2 is commonly transcribed, not checked against the original table here; R_ref, β_ref, ψ and the β ranges agree between independent transcriptions',
+      'Reid et al. (2014), ApJ 783, 130, Table 2 (R_ref, β_ref, ψ, β range, width; R0 = 8.34 kpc, abstract). Values as Table 2 is commonly reproduced, not checked against the original table here; R_ref, β_ref, ψ and the β ranges agree between independent copies',
     R0Kpc: 8.34,
     arms: [
       {
@@ -90,7 +90,7 @@ export const ARM_MODEL_PRESETS: Readonly<Record<string, ArmModelPreset>> = Objec
   'reid-2019': {
     label: 'Reid et al. (2019) arms',
     source:
-      'Reid et al. (2019), ApJ 885, 131, Table 2 (β range, β_kink, R_kink, ψ<, ψ>, width; R0 = 8.15 kpc, abstract). Values as Table 2 is commonly transcribed, not checked against the original table here; independent transcriptions agree on every number, including the Norma–Outer range 5° → 54°',
+      'Reid et al. (2019), ApJ 885, 131, Table 2 (β range, β_kink, R_kink, ψ<, ψ>, width; R0 = 8.15 kpc, abstract). Values as Table 2 is commonly reproduced, not checked against the original table here; independent copies agree on every number, including the Norma–Outer range 5° → 54°',
     R0Kpc: 8.15,
     arms: [
       kinked('3-kpc', 15, 18, 15, 3.52, -4.2, -4.2, 0.18),

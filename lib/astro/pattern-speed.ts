@@ -1,6 +1,6 @@
 /**
  * Angular speeds, pattern speed, corotation and the gas-to-stars delay across an arm
- * (SCIENCE.md §6). Angular speeds in km/s/kpc, radii in kpc, times in Myr.
+ * (docs/methods.md, "Pattern speed and timescale"). Angular speeds in km/s/kpc, radii in kpc, times in Myr.
  */
 
 import { angularSpeedKmsKpc } from './rotation-curves';

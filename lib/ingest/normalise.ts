@@ -177,7 +177,7 @@ function compile(header: TableHeader, mapping: Mapping): Plan {
         let v = optionalNumberIn(values, vIdx, vel.column) * vFactor;
         if (!Number.isNaN(v)) {
           check(vSchema, v, vel.column, text);
-          // Convention first, then the frame shift, added in the radio convention as SCIENCE.md §2 states it.
+          // Convention first, then the frame shift, added in the radio convention as docs/methods.md ("Velocities") states it.
           if (vel.convention !== 'radio') v = toRadio(v, vel.convention, vel.column, text);
           if (vel.frame === 'heliocentric') v = helioToLsrKms(v, out.lDeg, out.bDeg);
         }

@@ -1,5 +1,5 @@
 /**
- * The gas-to-young-star displacement of each complex (SCIENCE.md §6), from the centroid of its
+ * The gas-to-young-star displacement of each complex (docs/methods.md, "Within complexes"), from the centroid of its
  * gas members (HI, CO) to the centroid of its young-star members (HII, OB).
  *
  * All members share the complex's distance, so only the component of the displacement across

@@ -168,7 +168,7 @@ describe('catalog upload and ingest', () => {
     const l = body.rows[0].l > 180 ? body.rows[0].l - 360 : body.rows[0].l;
     expect(Math.abs(l) * 3600).toBeLessThan(0.1);
     expect(Math.abs(body.rows[0].b) * 3600).toBeLessThan(0.1);
-    // v_LSR = v_hel + U cos l cos b + V sin l cos b + W sin b = 10.27 at l = b = 0 (SCIENCE.md §2, common practice).
+    // v_LSR = v_hel + U cos l cos b + V sin l cos b + W sin b = 10.27 at l = b = 0 (kinematic LSR, common practice).
     expect(body.rows[0].v).toBeCloseTo(10.27, 2);
   });
 

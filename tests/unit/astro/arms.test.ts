@@ -19,7 +19,7 @@ const reid19 = ARM_MODEL_PRESETS['reid-2019'];
 
 describe('arm presets', () => {
   it('hold the Reid et al. (2019) Table 2 rows', () => {
-    // Reid et al. (2019) Table 2 as transcribed in several independent copies (original table not
+    // Reid et al. (2019) Table 2 as reproduced in several independent copies (original table not
     // checked here): [β from, β to, β_kink, R_kink kpc, ψ< deg, ψ> deg, width kpc]
     const table: Record<string, number[]> = {
       '3-kpc': [15, 18, 15, 3.52, -4.2, -4.2, 0.18],
@@ -46,7 +46,7 @@ describe('arm presets', () => {
   });
 
   it('hold the Reid et al. (2014) Table 2 rows', () => {
-    // Reid et al. (2014) Table 2 as transcribed (original table not checked here):
+    // Reid et al. (2014) Table 2 as commonly reproduced (original table not checked here):
     // [R_ref kpc, β_ref deg, ψ deg, β from, β to, width kpc]
     const table: Record<string, number[]> = {
       Scutum: [5.0, 27.6, 19.8, 3, 101, 0.17],

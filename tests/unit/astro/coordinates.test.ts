@@ -49,7 +49,7 @@ describe('Galactic ↔ equatorial constants', () => {
   });
 
   it('agrees with astronomy-engine Rotation_EQJ_GAL within 15″ on 1000 random points', () => {
-    // astronomy-engine (independent realisation of the 1958 system; SCIENCE.md §1: ~10″)
+    // astronomy-engine (independent realisation of the 1958 system; agrees to ~10″, common practice)
     const rot = Rotation_EQJ_GAL();
     const t = MakeTime(0);
     const rng = makeRng(2024);

@@ -12,13 +12,13 @@ describe('pattern speed and delays', () => {
   const flat = makeRotationCurve('flat');
 
   it('converts km/s/kpc to time units', () => {
-    // SCIENCE.md §6: 1 km/s/kpc ≈ 1.0227 Gyr⁻¹ (1/977.79 Myr⁻¹)
+    // IAU constants (1 pc = 3.0857e13 km, 1 Myr = 3.156e13 s): 1 km/s/kpc ≈ 1.0227 Gyr⁻¹ (1/977.79 Myr⁻¹)
     expect(KMS_KPC_PER_MYR * 1000).toBeCloseTo(1.0227, 4);
     expect(1 / KMS_KPC_PER_MYR).toBeCloseTo(977.79, 2);
   });
 
   it('gives t = Δβ / (Ω − Ω_p) in Myr', () => {
-    // SCIENCE.md §6; one radian at 1 km/s/kpc relative speed is 977.79 Myr
+    // same constants; one radian at 1 km/s/kpc relative speed is 977.79 Myr
     const omega = angularSpeedKmsKpc(8.5, flat);
     expect(omega).toBeCloseTo(220 / 8.5, 12);
     expect(delayMyr(180 / Math.PI, 8.5, flat, omega - 1)).toBeCloseTo(977.79, 1);

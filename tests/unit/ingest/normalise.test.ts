@@ -34,7 +34,7 @@ const C_KMS = 299792.458; // speed of light, exact by definition (SI)
 describe('row normaliser', () => {
   const cols = ['glon', 'glat', 'v', 'size', 'width', 'dist', 'name'];
 
-  it('converts heliocentric velocities to LSR with the SCIENCE.md §2 formula', () => {
+  it('converts heliocentric velocities to LSR with the kinematic-LSR formula', () => {
     const n = makeRowNormaliser(
       header(cols),
       galactic({
@@ -48,7 +48,7 @@ describe('row normaliser', () => {
     ]) {
       const rec = record(n([String(l), String(b), String(v), '', '', '', ''], 2, 1));
       const rad = Math.PI / 180;
-      // SCIENCE.md §2 (common practice): v_LSR = v_helio + U cos l cos b + V sin l cos b + W sin b,
+      // Kinematic LSR (common practice): v_LSR = v_helio + U cos l cos b + V sin l cos b + W sin b,
       // (U, V, W) = (10.27, 15.32, 7.74) km/s.
       const expected =
         v +
@@ -66,7 +66,7 @@ describe('row normaliser', () => {
     );
     const rec = record(n(['10', '0', '3000000', '', '', '', ''], 2, 1));
     const vOpt = 3000;
-    // SCIENCE.md §2 definitions: ν/ν₀ = 1/(1 + v_opt/c), v_radio = c(1 − ν/ν₀) = c·v_opt/(c + v_opt).
+    // Radio and optical conventions (definitions): ν/ν₀ = 1/(1 + v_opt/c), v_radio = c(1 − ν/ν₀) = c·v_opt/(c + v_opt).
     expect(rec.vLsrKms).toBeCloseTo((C_KMS * vOpt) / (C_KMS + vOpt), 9);
   });
 
@@ -106,7 +106,7 @@ describe('row normaliser', () => {
           lat: { column: 'dec', unit: decUnit },
         },
       });
-    // Galactic centre at α = 266.40499°, δ = −28.93617° (SCIENCE.md §1, Hipparcos Vol. 1 §1.5.3).
+    // Galactic centre at α = 266.40499°, δ = −28.93617° (Hipparcos Catalogue, ESA 1997, Vol. 1, §1.5.3).
     const gcDeg = record(makeRowNormaliser(h, eq('deg', 'deg'))(['266.40499', '-28.93617'], 2));
     expect(Math.min(gcDeg.lDeg, 360 - gcDeg.lDeg)).toBeLessThan(1e-4);
     expect(gcDeg.bDeg).toBeCloseTo(0, 4);

@@ -196,7 +196,7 @@ describe('exclusions', () => {
     const complexes: OrderingComplex[] = [
       { id: 'gc-window', members: [memberSeen('co', 8, 0, 30)] },
       { id: 'no-v', members: [memberSeen('co', 40, 0, NaN)] },
-      // flat curve at l = 30°: terminal velocity Θ0 (1 − sin l) = 110 km/s (SCIENCE.md §4)
+      // flat curve at l = 30°: terminal velocity Θ0 (1 − sin l) = 110 km/s (flat-curve closed form, exact)
       { id: 'beyond', members: [memberSeen('co', 30, 0, 130)] },
       // 2 km/s below it: the roots lie closer than σ_v = √(1² + 7²) km/s can separate
       // (half-separation × |dv/dd| = 2 (v_t − v) for a parabolic peak; exact geometry)

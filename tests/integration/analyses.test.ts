@@ -48,14 +48,14 @@ describe('ordering analysis through the API', () => {
     seed: 3,
   });
 
-  const galaxy = generateGalaxy({ seed: 7, complexes: 600, interlopers: 0 });
+  const galaxy = generateGalaxy({ seed: 7, complexes: 800, interlopers: 0 });
 
   beforeAll(async () => {
     t = await makeTeam('ordering');
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lanewise-galaxy-'));
     await writeDemoFiles(galaxy, dir);
     const ids: string[] = [];
-    for (const c of DEMO_CATALOGS.filter((d) => d.kind !== 'hi')) {
+    for (const c of DEMO_CATALOGS) {
       const up = await upload(t.editor, t.projectId, {
         content: fs.readFileSync(path.join(dir, c.file)),
         fileName: c.file,

@@ -10,8 +10,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { and, eq } from 'drizzle-orm';
 import { db } from '@/db/client';
-import { analyses, catalogs, projectMembers, projects } from '@/db/schema';
-import { newId } from '@/lib/auth/secrets';
+import { analyses, catalogs, projects } from '@/db/schema';
 import { env } from '@/lib/env';
 import { runWorker } from '@/lib/jobs/worker';
 import {
@@ -22,6 +21,7 @@ import {
 import { createCatalog } from '@/lib/services/catalogs';
 import { startExternalAnalysis } from '@/lib/services/external-analyses';
 import { updateProject } from '@/lib/services/projects';
+import { ensureDemoProject } from '@/lib/services/seed-accounts';
 import { getUserByEmail } from '@/lib/services/users';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 import {
@@ -90,50 +90,26 @@ function writeFiles(dir: string) {
   return g.galaxy;
 }
 
-async function userIds() {
-  const ids = new Map<string, string>();
+async function userIds(): Promise<Record<string, string>> {
+  const ids: Record<string, string> = {};
   for (const a of DEMO_ACCOUNTS) {
     const u = await getUserByEmail(a.email);
     if (!u) throw new Error(`demo account ${a.email} missing`);
-    ids.set(a.email, u.id);
+    ids[a.email] = u.id;
   }
   return ids;
-}
-
-/** The project, owned by the demo owner, with the demo team in the same roles as in the first. */
-async function ensureProject(ids: Map<string, string>): Promise<string> {
-  const ownerId = ids.get('owner@harborridge.example')!;
-  let [project] = await db
-    .select({ id: projects.id })
-    .from(projects)
-    .where(and(eq(projects.name, EXTERNAL_DEMO_PROJECT_NAME), eq(projects.createdBy, ownerId)));
-  if (!project) {
-    project = { id: newId() };
-    await db.insert(projects).values({
-      id: project.id,
-      name: EXTERNAL_DEMO_PROJECT_NAME,
-      description:
-        'Invented demo data: a nearby spiral seen at a moderate inclination, whose pattern speed and cloud-to-HII-region time are known exactly.',
-      createdBy: ownerId,
-      settings: {},
-    });
-  }
-  for (const a of DEMO_ACCOUNTS) {
-    if (!a.projectRole) continue;
-    await db
-      .insert(projectMembers)
-      .values({ projectId: project.id, userId: ids.get(a.email)!, role: a.projectRole })
-      .onDuplicateKeyUpdate({ set: { role: a.projectRole } });
-  }
-  return project.id;
 }
 
 /** Seeds the external-galaxy demo project; returns its id. */
 export async function seedExternalDemo(): Promise<string> {
   const ids = await userIds();
-  const projectId = await ensureProject(ids);
-  const ownerId = ids.get('owner@harborridge.example')!;
-  const editorId = ids.get('editor@harborridge.example')!;
+  const projectId = await ensureDemoProject(
+    EXTERNAL_DEMO_PROJECT_NAME,
+    'Invented demo data: a nearby spiral seen at a moderate inclination, whose pattern speed and cloud-to-HII-region time are known exactly.',
+    ids,
+  );
+  const ownerId = ids['owner@harborridge.example'];
+  const editorId = ids['editor@harborridge.example'];
   const dir = path.resolve(env().LANEWISE_DATA_DIR, 'demo-external-source');
   // The galaxy as the generator places it: no file needs to be read to know it.
   const galaxy = fs.existsSync(path.join(dir, FILES[1].file))

@@ -1,6 +1,7 @@
 'use client';
 
 import { useMemo } from 'react';
+import { MapLegend } from '@/components/plots/map-legend';
 import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
 import { fmt } from '@/components/link-runs/format';
 import { ZoomFigure, type Domain, type HoverTarget } from '@/components/ordering/zoom-figure';
@@ -92,32 +93,16 @@ export function DiscMap({
         </>
       }
       overlay={() => (
-        <g transform={`translate(${MARGIN.left + 8} ${MARGIN.top + 8})`}>
-          <rect
-            width={150}
-            height={16 * (kinds.length + 1) + 6}
-            fill={PLOT_COLOURS.background}
-            fillOpacity={0.9}
-            stroke={PLOT_COLOURS.rule}
-          />
-          {kinds.map((k, i) => {
-            const t = tracerStyle(k);
-            return (
-              <g key={k} transform={`translate(10 ${14 + 16 * i})`}>
-                <path d={markerPath(t.shape, 0, -3, 4)} fill={t.colour} />
-                <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-                  {t.label} ({ROLE_WORDS[roleOfKind(k, gasKinds, youngKinds)]})
-                </text>
-              </g>
-            );
-          })}
-          <g transform={`translate(10 ${14 + 16 * kinds.length})`}>
-            <line x1={-5} x2={5} y1={-3} y2={-3} stroke={PLOT_COLOURS.accent} strokeWidth={2} />
-            <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-              arm ridge line
-            </text>
-          </g>
-        </g>
+        <MapLegend
+          x={MARGIN.left + 8}
+          y={MARGIN.top + 8}
+          width={150}
+          kinds={kinds}
+          kindWords={(k) =>
+            `${tracerStyle(k).label} (${ROLE_WORDS[roleOfKind(k, gasKinds, youngKinds)]})`
+          }
+          rows={[]}
+        />
       )}
     >
       {({ px, py, unitPx }) => (

@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo } from 'react';
-import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
+import { DphiMarks } from '@/components/plots/dphi-marks';
 import { fmt } from '@/components/link-runs/format';
 import { ZoomFigure, type Domain, type HoverTarget } from '@/components/ordering/zoom-figure';
 import type { ExternalRotationCurve } from '@/lib/external/rotation';
@@ -102,58 +102,20 @@ export function DphiPlot({
       }
     >
       {({ px, py }) => (
-        <>
-          <line
-            x1={px(domain.x0) - 1e4}
-            x2={px(domain.x1) + 1e4}
-            y1={py(0)}
-            y2={py(0)}
-            stroke={PLOT_COLOURS.rule}
-          />
-          {corotation !== null && (
-            <line
-              x1={px(corotation)}
-              x2={px(corotation)}
-              y1={-1e4}
-              y2={1e4}
-              stroke={PLOT_COLOURS.inkSoft}
-              strokeDasharray="6 4"
-              data-testid="dphi-corotation"
-            />
-          )}
-          {model.length > 1 && (
-            <polyline
-              points={model.map(([x, y]) => `${px(x).toFixed(1)},${py(y).toFixed(1)}`).join(' ')}
-              fill="none"
-              stroke={PLOT_COLOURS.accent}
-              strokeWidth={1.8}
-              data-testid="dphi-model-line"
-            />
-          )}
-          {rings.map((r) => (
-            <g key={r.minKpc} data-testid="dphi-ring">
-              {r.ci95 && (
-                <line
-                  x1={px(r.RKpc)}
-                  x2={px(r.RKpc)}
-                  y1={py(r.ci95[0])}
-                  y2={py(r.ci95[1])}
-                  stroke={PLOT_COLOURS.ink}
-                  strokeWidth={1.2}
-                  data-testid="dphi-interval"
-                />
-              )}
-              <circle
-                cx={px(r.RKpc)}
-                cy={py(r.dphiDeg)}
-                r={4}
-                fill={r.fitted ? PLOT_COLOURS.ink : PLOT_COLOURS.background}
-                stroke={PLOT_COLOURS.ink}
-                strokeWidth={1.3}
-              />
-            </g>
-          ))}
-        </>
+        <DphiMarks
+          px={px}
+          py={py}
+          xSpan={[domain.x0, domain.x1]}
+          corotationKpc={corotation}
+          model={model}
+          rings={rings.map((r) => ({
+            key: r.minKpc,
+            RKpc: r.RKpc,
+            dphiDeg: r.dphiDeg,
+            ci95: r.ci95,
+            fitted: r.fitted,
+          }))}
+        />
       )}
     </ZoomFigure>
   );

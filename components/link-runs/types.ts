@@ -3,7 +3,7 @@
  * are degrees unless a name says otherwise; velocities are LSR km/s; times are ISO 8601.
  */
 
-import type { DistanceChoice } from '@/lib/ordering/types';
+import type { ComplexAnalysisJson } from '@/lib/schemas/analyses';
 
 export type RunStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
 export type Review = 'accepted' | 'doubtful' | 'rejected';
@@ -94,25 +94,8 @@ export interface Estimate {
 
 export type ClassCounts = Record<'hi' | 'co' | 'hii' | 'ob' | 'other', number>;
 
-/**
- * A complex as the run's latest done ordering analysis placed it: distance (kpc) as the median
- * of its Monte Carlo draws with the 68 % (`distLoKpc`–`distHiKpc`) and 95 % intervals, the
- * probability of the near root, its arm and signed offset from the ridge (kpc, positive ahead in
- * the sense of rotation).
- */
-export interface ComplexAnalysis {
-  id: string;
-  finishedAt: string;
-  distKpc: number | null;
-  distLoKpc: number | null;
-  distHiKpc: number | null;
-  distCi95: [number, number] | null;
-  pNear: number | null;
-  choice: DistanceChoice;
-  arm: string | null;
-  perpOffsetKpc: number | null;
-  used: boolean;
-}
+/** A complex as the run's latest done ordering analysis placed it (the API's shape). */
+export type ComplexAnalysis = ComplexAnalysisJson;
 
 export interface Complex {
   id: string;

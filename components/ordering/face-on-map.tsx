@@ -1,6 +1,7 @@
 'use client';
 
 import { useMemo } from 'react';
+import { MapLegend } from '@/components/plots/map-legend';
 import { PLOT_COLOURS, axisNumber } from '@/components/link-runs/svg-figure';
 import { fmt } from '@/components/link-runs/format';
 import { armPoints, type ArmSpec } from '@/lib/astro/arms';
@@ -126,44 +127,17 @@ export function FaceOnMap({
         </>
       }
       overlay={() => (
-        <g transform={`translate(${MARGIN.left + 8} ${MARGIN.top + 8})`}>
-          <rect
-            width={118}
-            height={16 * (kinds.length + 3) + 6}
-            fill={PLOT_COLOURS.background}
-            fillOpacity={0.9}
-            stroke={PLOT_COLOURS.rule}
-          />
-          {kinds.map((k, i) => {
-            const t = tracerStyle(k);
-            return (
-              <g key={k} transform={`translate(10 ${14 + 16 * i})`}>
-                <path d={markerPath(t.shape, 0, -3, 4)} fill={t.colour} />
-                <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-                  {t.label}
-                </text>
-              </g>
-            );
-          })}
-          <g transform={`translate(10 ${14 + 16 * kinds.length})`}>
-            <SunGlyph x={0} y={-3} />
-            <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-              Sun
-            </text>
-          </g>
-          <g transform={`translate(10 ${14 + 16 * (kinds.length + 1)})`}>
-            <CentreGlyph x={0} y={-3} />
-            <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-              Galactic centre
-            </text>
-          </g>
-          <g transform={`translate(10 ${14 + 16 * (kinds.length + 2)})`}>
-            <line x1={-5} x2={5} y1={-3} y2={-3} stroke={PLOT_COLOURS.accent} strokeWidth={2} />
-            <text x={10} y={0} fill={PLOT_COLOURS.ink}>
-              arm ridge line
-            </text>
-          </g>
-        </g>
+        <MapLegend
+          x={MARGIN.left + 8}
+          y={MARGIN.top + 8}
+          width={118}
+          kinds={kinds}
+          kindWords={(k) => tracerStyle(k).label}
+          rows={[
+            { key: 'sun', glyph: <SunGlyph x={0} y={-3} />, words: 'Sun' },
+            { key: 'centre', glyph: <CentreGlyph x={0} y={-3} />, words: 'Galactic centre' },
+          ]}
+        />
       )}
     >
       {({ px, py, unitPx }) => (

@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo } from 'react';
-import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
+import { DphiMarks } from '@/components/plots/dphi-marks';
 import { fmt } from '@/components/link-runs/format';
 import { angularSpeedKmsKpc, type RotationCurve } from '@/lib/astro/rotation-curves';
 import { ZoomFigure, type Domain, type HoverTarget } from './zoom-figure';
@@ -113,56 +113,20 @@ export function PhasePlot({
       }
     >
       {({ px, py }) => (
-        <>
-          <line
-            x1={px(domain.x0) - 1e4}
-            x2={px(domain.x1) + 1e4}
-            y1={py(0)}
-            y2={py(0)}
-            stroke={PLOT_COLOURS.rule}
-          />
-          {corotation !== null && (
-            <line
-              x1={px(corotation)}
-              x2={px(corotation)}
-              y1={-1e4}
-              y2={1e4}
-              stroke={PLOT_COLOURS.inkSoft}
-              strokeDasharray="6 4"
-            />
-          )}
-          {model.length > 1 && (
-            <polyline
-              points={model.map(([x, y]) => `${px(x).toFixed(1)},${py(y).toFixed(1)}`).join(' ')}
-              fill="none"
-              stroke={PLOT_COLOURS.accent}
-              strokeWidth={1.8}
-              data-testid="dphi-model-line"
-            />
-          )}
-          {bins.map((b) => (
-            <g key={b.RminKpc} data-testid="dphi-ring">
-              {b.ci95 && (
-                <line
-                  x1={px(b.RKpc)}
-                  x2={px(b.RKpc)}
-                  y1={py(b.ci95[0])}
-                  y2={py(b.ci95[1])}
-                  stroke={PLOT_COLOURS.ink}
-                  strokeWidth={1.2}
-                />
-              )}
-              <circle
-                cx={px(b.RKpc)}
-                cy={py(b.dphiDeg!)}
-                r={4}
-                fill={b.fitted ? PLOT_COLOURS.ink : PLOT_COLOURS.background}
-                stroke={PLOT_COLOURS.ink}
-                strokeWidth={1.3}
-              />
-            </g>
-          ))}
-        </>
+        <DphiMarks
+          px={px}
+          py={py}
+          xSpan={[domain.x0, domain.x1]}
+          corotationKpc={corotation}
+          model={model}
+          rings={bins.map((b) => ({
+            key: b.RminKpc,
+            RKpc: b.RKpc,
+            dphiDeg: b.dphiDeg!,
+            ci95: b.ci95,
+            fitted: b.fitted,
+          }))}
+        />
       )}
     </ZoomFigure>
   );

@@ -5,6 +5,7 @@
  * of Galactic rotation), which is how a tracer class lying beside the ridge is described.
  */
 
+import { wrap180Deg } from './angles';
 import { ROTATION_SENSE, fromGalactocentric, polarToXy } from './galactocentric';
 import { armRadiusKpc, type ArmSpec } from './arms';
 
@@ -73,11 +74,6 @@ export function shiftedRidgePoint(
   };
 }
 
-function wrap180(deg: number): number {
-  const w = ((((deg + 180) % 360) + 360) % 360) - 180;
-  return w === -180 ? 180 : w;
-}
-
 /** Golden-section search for the maximum of f on [lo, hi] (f unimodal there). */
 function goldenMax(f: (x: number) => number, lo: number, hi: number): number {
   const phi = (Math.sqrt(5) - 1) / 2;
@@ -133,7 +129,7 @@ export function armTangentLongitudes(
   // Longitude unwrapped along the ridge so that extrema near l = 0°/360° are seen.
   const l = new Float64Array(n);
   l[0] = lonAt(beta[0]);
-  for (let i = 1; i < n; i++) l[i] = l[i - 1] + wrap180(lonAt(beta[i]) - l[i - 1]);
+  for (let i = 1; i < n; i++) l[i] = l[i - 1] + wrap180Deg(lonAt(beta[i]) - l[i - 1]);
 
   const tangents: ArmTangent[] = [];
   for (let i = 1; i < n - 1; i++) {
@@ -143,7 +139,7 @@ export function armTangentLongitudes(
     const sign = isMax ? 1 : -1;
     const ref = l[i];
     const betaT = goldenMax(
-      (b) => sign * (ref + wrap180(lonAt(b) - ref)),
+      (b) => sign * (ref + wrap180Deg(lonAt(b) - ref)),
       beta[i - 1],
       beta[i + 1],
     );
@@ -179,7 +175,7 @@ export function tangentNormalOffsetKpc(
   tangent: ArmTangent,
   lDeg: number,
 ): number {
-  const betaStar = tangent.betaDeg - wrap180(lDeg - tangent.lDeg);
+  const betaStar = tangent.betaDeg - wrap180Deg(lDeg - tangent.lDeg);
   const f = ridgeFrame(arm, betaStar);
   return (R0Kpc - f.xKpc) * f.aheadX + (0 - f.yKpc) * f.aheadY;
 }

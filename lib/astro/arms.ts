@@ -6,6 +6,7 @@
  * rotation ({@link ROTATION_SENSE}).
  */
 
+import { wrap180Deg } from './angles';
 import { ROTATION_SENSE, azimuthDeg, fromGalactocentric, polarToXy } from './galactocentric';
 import { vLsrAtKms } from './kinematic-distance';
 import type { RotationCurve } from './rotation-curves';
@@ -238,11 +239,6 @@ function prepare(arm: ArmSpec): Prepared {
   return p;
 }
 
-function wrap180(deg: number): number {
-  const w = ((((deg + 180) % 360) + 360) % 360) - 180;
-  return w === -180 ? 180 : w;
-}
-
 /** Azimuth offset (deg) of (R, β) from the ridge at the same R: the nearest ridge crossing of that radius. */
 function ridgeAzimuthOffset(g: ArmGeometry, RKpc: number, betaDeg: number): number {
   const lnR = Math.log(RKpc);
@@ -251,7 +247,7 @@ function ridgeAzimuthOffset(g: ArmGeometry, RKpc: number, betaDeg: number): numb
     if (t === 0) return;
     const beta = g.betaK - (lnR - g.lnRk) / t / DEG;
     if (below ? beta > g.betaK + 1e-12 : beta < g.betaK - 1e-12) return;
-    const off = wrap180(betaDeg - beta);
+    const off = wrap180Deg(betaDeg - beta);
     if (!(Math.abs(off) >= Math.abs(best))) best = off;
   };
   consider(g.tanBelow, true);

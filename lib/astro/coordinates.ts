@@ -4,6 +4,8 @@
  * separations and position angles. All angles in degrees.
  */
 
+import { wrap360Deg } from './angles';
+
 const DEG = Math.PI / 180;
 
 /** J2000 right ascension of the north Galactic pole, deg (Hipparcos Catalogue, ESA 1997, Vol. 1, §1.5.3). */
@@ -44,12 +46,6 @@ export function equatorialToGalacticMatrix(): number[][] {
   ];
 }
 
-function wrap360(deg: number): number {
-  const w = deg % 360;
-  const r = w < 0 ? w + 360 : w;
-  return r >= 360 ? 0 : r;
-}
-
 function rotate(
   lonDeg: number,
   latDeg: number,
@@ -71,7 +67,7 @@ function rotate(
     gz = m[6] * vx + m[7] * vy + m[8] * vz;
   }
   return {
-    lonDeg: wrap360(Math.atan2(gy, gx) / DEG),
+    lonDeg: wrap360Deg(Math.atan2(gy, gx) / DEG),
     latDeg: Math.atan2(gz, Math.hypot(gx, gy)) / DEG,
   };
 }
@@ -316,5 +312,5 @@ export function positionAngleDeg(
   const x =
     Math.cos(lat1Deg * DEG) * Math.sin(lat2Deg * DEG) -
     Math.sin(lat1Deg * DEG) * c2 * Math.cos(dLon);
-  return wrap360(Math.atan2(y, x) / DEG);
+  return wrap360Deg(Math.atan2(y, x) / DEG);
 }

@@ -16,7 +16,7 @@ import { median } from '@/lib/stats/summary';
 import { classPlan, memberCounts, planGroups, summarisePlan } from './class-offsets';
 import { complexInputs, VELOCITY_SOURCE } from './complex-inputs';
 import { conventionsText } from './conventions';
-import { drawDistances } from './distance-draws';
+import { drawDistances, velocitySigmaKms } from './distance-draws';
 import { drawQuantiles, offsetsOfDraws } from './draw-offsets';
 import { countReasons, type ExclusionReason } from './exclusions';
 import { gasToStarsColumns } from './gas-to-stars';
@@ -87,9 +87,7 @@ export function runOrderingAnalysis(
   progress(0.02);
 
   const inputs = complexInputs(cols, n, settings.velocityFrom);
-  const sigmaKms = Float64Array.from(inputs.sigmaMeasKms, (s) =>
-    Math.sqrt(s * s + settings.sigmaStreamKms ** 2),
-  );
+  const sigmaKms = velocitySigmaKms(inputs, settings.sigmaStreamKms);
   const nominal = kinematicDistancesBulk(inputs.lDeg, inputs.bDeg, inputs.vLsrKms, curve, sigmaKms);
   const draws = drawDistances(
     inputs,

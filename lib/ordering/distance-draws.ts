@@ -135,6 +135,11 @@ function methodsOf(
   return { method, exclusion };
 }
 
+/** Each complex's velocity uncertainty: its measurement error in quadrature with streaming (km/s). */
+export function velocitySigmaKms(inputs: ComplexInputs, sigmaStreamKms: number): Float64Array {
+  return Float64Array.from(inputs.sigmaMeasKms, (s) => Math.sqrt(s * s + sigmaStreamKms ** 2));
+}
+
 /**
  * Draws `settings.draws` distances for every complex (see the module comment). `overrides[c]`
  * is a hand-set distance (kpc) or null. `onDraw(j)` reports progress. Reproducible from the seed.
@@ -155,9 +160,7 @@ export function drawDistances(
   const twoRoot = new Int32Array(n);
   const nearCount = new Int32Array(n);
   const tangentCount = new Int32Array(n);
-  const sigmaKms = Float64Array.from(inputs.sigmaMeasKms, (s) =>
-    Math.sqrt(s * s + settings.sigmaStreamKms ** 2),
-  );
+  const sigmaKms = velocitySigmaKms(inputs, settings.sigmaStreamKms);
   const independent = Array.from({ length: n }, (_, c) => independentOf(inputs, c));
   const constants = makeRng(deriveSeed(settings.seed, 0));
   const fixed = settings.R0ErrKpc === 0 && settings.theta0ErrKms === 0;

@@ -13,8 +13,9 @@
  * the pooled draws (each complex's usable draws sharing its weight).
  */
 import { makeRng } from '@/lib/stats/rng';
-import { quantileSorted } from '@/lib/stats/summary';
 import { weightedMedianInPlace } from '@/lib/stats/weighted-median';
+import { CI_LEVEL } from './cluster-bootstrap';
+import { percentileInterval } from './pattern-fit';
 import type { Ci } from './types';
 
 /** Complexes of a statistic with their weights (members), and which value matrix it reads. */
@@ -22,9 +23,6 @@ export type Group = { complexes: Int32Array; weights: Float64Array; matrix: numb
 
 /** Value matrices n × D ([c·D + j]; NaN = unusable draw, the same pattern in every matrix). */
 export type DrawMatrices = { count: number; draws: number; values: Float64Array[] };
-
-/** Confidence level of every interval in the analysis. */
-export const CI_LEVEL = 0.95;
 
 function usableDraws(m: DrawMatrices): { start: Int32Array; index: Int32Array } {
   const { count: n, draws: D } = m;
@@ -123,8 +121,7 @@ export function nestedReplicates(
 
 /** Percentile interval at {@link CI_LEVEL} of the finite replicates; null when fewer than half are finite. */
 export function percentileCi(replicates: Float64Array): Ci | null {
-  const finite = replicates.filter((x) => Number.isFinite(x)).sort();
-  if (finite.length < replicates.length / 2 || finite.length === 0) return null;
-  const a = (1 - CI_LEVEL) / 2;
-  return [quantileSorted(finite, a), quantileSorted(finite, 1 - a)];
+  const finite = replicates.filter((x) => Number.isFinite(x));
+  if (finite.length === 0 || finite.length < replicates.length / 2) return null;
+  return percentileInterval(finite, CI_LEVEL);
 }

@@ -8,6 +8,7 @@
  * of the perpendicular. `tests/unit/ordering/ridge-offset.test.ts` checks it against the
  * scanning implementation.
  */
+import { wrap180Deg } from '@/lib/astro/angles';
 import { armGeometry, type ArmGeometry, type ArmSpec } from '@/lib/astro/arms';
 import { ROTATION_SENSE } from '@/lib/astro/galactocentric';
 
@@ -52,11 +53,6 @@ export function prepareRidges(arms: ArmSpec[]): PreparedRidges {
 function radius(g: ArmGeometry, betaDeg: number): number {
   const t = betaDeg <= g.betaK ? g.tanBelow : g.tanAbove;
   return Math.exp(g.lnRk - (betaDeg - g.betaK) * DEG * t);
-}
-
-function wrap180(deg: number): number {
-  const w = ((((deg + 180) % 360) + 360) % 360) - 180;
-  return w === -180 ? 180 : w;
 }
 
 /** Squared distance from (x, y) to the ridge point at β (deg), in the frame of `galactocentric`. */
@@ -193,7 +189,7 @@ function azimuthOffsetAtRadius(g: ArmGeometry, lnR: number, betaDeg: number): nu
     if (t === 0) return;
     const beta = g.betaK - (lnR - g.lnRk) / t / DEG;
     if (below ? beta > g.betaK + 1e-12 : beta < g.betaK - 1e-12) return;
-    const o = wrap180(betaDeg - beta);
+    const o = wrap180Deg(betaDeg - beta);
     if (!(Math.abs(o) >= Math.abs(off))) off = o;
   };
   consider(g.tanBelow, true);

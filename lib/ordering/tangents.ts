@@ -30,6 +30,7 @@
  * per-resample differences. Seeded; tangent k uses the stream deriveSeed(seed, k).
  */
 
+import { wrap180Deg, wrap360Deg } from '@/lib/astro/angles';
 import {
   armTangentLongitudes,
   tangentNormalOffsetKpc,
@@ -150,16 +151,6 @@ const PAIRS: readonly [number, number][] = [
   [1, 0],
   [2, 3],
 ];
-
-function wrap180(deg: number): number {
-  const w = ((((deg + 180) % 360) + 360) % 360) - 180;
-  return w === -180 ? 180 : w;
-}
-
-function wrap360(deg: number): number {
-  const w = ((deg % 360) + 360) % 360;
-  return w >= 360 ? 0 : w;
-}
 
 function resolveOptions(options: Partial<TangentOptions>): TangentOptions {
   const o = { ...DEFAULT_TANGENT_OPTIONS, ...options };
@@ -349,7 +340,7 @@ function oneTangent(
   }));
   for (let i = 0; i < input.lDeg.length; i++) {
     if (!(Math.abs(input.bDeg[i]) < o.maxAbsBDeg)) continue;
-    const u = wrap180(input.lDeg[i] - t.lDeg);
+    const u = wrap180Deg(input.lDeg[i] - t.lDeg);
     if (Math.abs(u) >= reachDeg) continue;
     if (o.nearTerminalKms !== null) {
       const l = input.lDeg[i];
@@ -418,8 +409,8 @@ function oneTangent(
     return {
       kind: TRACER_KINDS[classes[k].kind],
       n: counts[k],
-      tangentLDeg: wrap360(lOf(point[k])),
-      ci95: ci ? [wrap360(ci[0]), wrap360(ci[1])] : null,
+      tangentLDeg: wrap360Deg(lOf(point[k])),
+      ci95: ci ? [wrap360Deg(ci[0]), wrap360Deg(ci[1])] : null,
     };
   });
 

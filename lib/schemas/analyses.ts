@@ -4,6 +4,7 @@
  * `OrderingResult` of `@/lib/ordering/types`.
  */
 import { z } from 'zod';
+import type { DistanceChoice } from '@/lib/ordering/types';
 
 /** One arm the user defines: a log spiral over a range of Galactocentric azimuth. */
 export const customArmSchema = z.object({
@@ -128,3 +129,23 @@ export const anyAnalysisSchema = z.union([analysisSchema, externalAnalysisSchema
 
 export type ExternalAnalysisParams = z.infer<typeof externalAnalysisSchema>;
 export type ProjectTarget = z.infer<typeof projectTargetSchema>;
+
+/**
+ * A complex as the run's latest done ordering analysis placed it, as the complexes API returns
+ * it: distance (kpc) as the median of its Monte Carlo draws with the 68 % (`distLoKpc`–
+ * `distHiKpc`) and 95 % intervals, the probability of the near root, its arm and signed offset
+ * from the ridge (kpc, positive ahead in the sense of rotation).
+ */
+export type ComplexAnalysisJson = {
+  id: string;
+  finishedAt: string;
+  distKpc: number | null;
+  distLoKpc: number | null;
+  distHiKpc: number | null;
+  distCi95: [number, number] | null;
+  pNear: number | null;
+  choice: DistanceChoice;
+  arm: string | null;
+  perpOffsetKpc: number | null;
+  used: boolean;
+};

@@ -1,7 +1,7 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
-import { db, pool } from '@/db/client';
+import { db, pool, type Tx } from '@/db/client';
 import {
   analyses,
   auditLog,
@@ -213,16 +213,21 @@ export async function executeAnalysis(analysisId: string, progress: (f: number) 
   });
   await db.transaction(async (tx) => {
     await writeAnalysisComplexes(tx, analysisId, run.id, result.complexes);
-    await tx
-      .update(analyses)
-      .set({
-        status: 'done',
-        progress: 1,
-        result: result as unknown as Record<string, unknown>,
-        finishedAt: sql`NOW(3)`,
-      })
-      .where(eq(analyses.id, analysisId));
+    await markAnalysisDone(tx, analysisId, result);
   });
+}
+
+/** The last write of an analysis job: status done with its whole result, in one statement. */
+export async function markAnalysisDone(tx: Tx | typeof db, analysisId: string, result: object) {
+  await tx
+    .update(analyses)
+    .set({
+      status: 'done',
+      progress: 1,
+      result: result as Record<string, unknown>,
+      finishedAt: sql`NOW(3)`,
+    })
+    .where(eq(analyses.id, analysisId));
 }
 
 export async function failAnalysis(analysisId: string, reason: string) {

@@ -2,6 +2,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import { db, type Tx } from '@/db/client';
 import { analyses, analysisComplexes, complexes } from '@/db/schema';
 import type { ComplexRow, DistanceChoice } from '@/lib/ordering';
+import type { ComplexAnalysisJson } from '@/lib/schemas/analyses';
 
 /** Rows per INSERT: 13 values each keeps a statement well under the placeholder limit. */
 const INSERT_CHUNK = 1000;
@@ -85,21 +86,6 @@ export function analysisComplexesOn(analysisId: string | null) {
         eq(analysisComplexes.complexId, complexes.id),
       )!;
 }
-
-/** A complex as the latest analysis placed it, as the complexes API returns it. */
-export type ComplexAnalysisJson = {
-  id: string;
-  finishedAt: string;
-  distKpc: number | null;
-  distLoKpc: number | null;
-  distHiKpc: number | null;
-  distCi95: [number, number] | null;
-  pNear: number | null;
-  choice: DistanceChoice;
-  arm: string | null;
-  perpOffsetKpc: number | null;
-  used: boolean;
-};
 
 export function complexAnalysisJson(
   latest: LatestAnalysis | null,

@@ -4,7 +4,7 @@
  * a link run's complexes, running `runExternalAnalysis` in the worker, and storing the result as
  * JSON with a methods text. The method: docs/methods.md, "External galaxies".
  */
-import { eq, inArray, sql } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
 import { analyses, catalogs, jobs, projects } from '@/db/schema';
@@ -31,6 +31,7 @@ import {
   type ExternalAnalysisParams,
 } from '@/lib/schemas/analyses';
 import pkg from '@/package.json';
+import { markAnalysisDone } from './analyses';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun, runCatalogs } from './link-runs';
 
@@ -226,22 +227,22 @@ const round = (x: number, digits: number) => {
   return Math.round(x * f) / f;
 };
 
+/** What the stored result and the methods text say besides the core's result. */
+type ResultContext = {
+  params: ExternalAnalysisParams;
+  galaxy: ExternalGalaxy;
+  galaxyName: string | null;
+  analysisId: string;
+  sources: LoadedSources;
+  runName: string | null;
+};
+
 /**
  * The stored result: the core's result with its typed arrays as plain lists (deprojected
  * sources rounded to 0.1 pc and 0.001°), plus the galaxy, the sources' origin, each complex's
  * place in the disc for a run, and the methods text.
  */
-export function externalResultJson(
-  result: ExternalAnalysisResult,
-  context: {
-    params: ExternalAnalysisParams;
-    galaxy: ExternalGalaxy;
-    galaxyName: string | null;
-    analysisId: string;
-    sources: LoadedSources;
-    runName: string | null;
-  },
-) {
+export function externalResultJson(result: ExternalAnalysisResult, context: ResultContext) {
   const { sources } = context;
   const complexes =
     sources.complexes &&
@@ -305,14 +306,7 @@ const range = (c: [number, number] | null | undefined, digits: number) =>
 /** A methods paragraph for the paper, with every parameter and reference, then the results. */
 export function externalMethodsText(
   result: ExternalAnalysisResult,
-  context: {
-    params: ExternalAnalysisParams;
-    galaxy: ExternalGalaxy;
-    galaxyName: string | null;
-    analysisId: string;
-    sources: LoadedSources;
-    runName: string | null;
-  },
+  context: ResultContext,
 ): string {
   const { params, galaxy, sources } = context;
   const { rings } = params;
@@ -406,13 +400,5 @@ export async function executeExternalAnalysis(
     sources,
     runName,
   });
-  await db
-    .update(analyses)
-    .set({
-      status: 'done',
-      progress: 1,
-      result: json as unknown as Record<string, unknown>,
-      finishedAt: sql`NOW(3)`,
-    })
-    .where(eq(analyses.id, analysisId));
+  await markAnalysisDone(db, analysisId, json);
 }

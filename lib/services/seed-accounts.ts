@@ -26,21 +26,32 @@ export async function ensureDemoAccounts(): Promise<string> {
       });
     }
   }
+  return ensureDemoProject(
+    DEMO_PROJECT_NAME,
+    'Invented demo data: a synthetic two-armed galaxy whose density wave is known exactly.',
+    ids,
+  );
+}
+
+/**
+ * A demo project owned by the demo owner, created when missing, with the demo team in their
+ * roles; `ids` maps each demo e-mail address to its user id. Returns the project's id.
+ */
+export async function ensureDemoProject(
+  name: string,
+  description: string,
+  ids: Readonly<Record<string, string>>,
+): Promise<string> {
   const ownerId = ids['owner@harborridge.example'];
   let [project] = await db
     .select({ id: projects.id })
     .from(projects)
-    .where(and(eq(projects.name, DEMO_PROJECT_NAME), eq(projects.createdBy, ownerId)));
+    .where(and(eq(projects.name, name), eq(projects.createdBy, ownerId)));
   if (!project) {
     project = { id: newId() };
-    await db.insert(projects).values({
-      id: project.id,
-      name: DEMO_PROJECT_NAME,
-      description:
-        'Invented demo data: a synthetic two-armed galaxy whose density wave is known exactly.',
-      createdBy: ownerId,
-      settings: {},
-    });
+    await db
+      .insert(projects)
+      .values({ id: project.id, name, description, createdBy: ownerId, settings: {} });
   }
   for (const a of DEMO_ACCOUNTS) {
     if (!a.projectRole) continue;

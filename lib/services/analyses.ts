@@ -12,8 +12,7 @@ import {
   linkRuns,
   users,
 } from '@/db/schema';
-import { rescaleArms } from '@/lib/astro/arm-rescale';
-import { ARM_MODEL_PRESETS, type ArmSpec } from '@/lib/astro/arms';
+import { ARM_MODEL_PRESETS } from '@/lib/astro/arms';
 import { ROTATION_CURVE_PRESETS } from '@/lib/astro/rotation-curves';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
@@ -22,69 +21,15 @@ import {
   type OrderingComplex,
   type OrderingMember,
   type OrderingResult,
-  type OrderingSettings,
 } from '@/lib/ordering';
 import { writeAnalysisComplexes } from './analysis-complexes';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
-import { toolCurve } from '@/lib/calculators';
+import { orderingSettings } from '@/lib/analysis-settings';
 import { analysisSchema, type AnalysisParams } from '@/lib/schemas/analyses';
 import type { ExternalAnalysisJson } from './external-analyses';
 
 export { analysisSchema, type AnalysisParams } from '@/lib/schemas/analyses';
-
-/** The arm model of a request: a published preset by key, or the user's own arms. */
-export function armsOf(params: AnalysisParams): { arms: ArmSpec[]; label: string; source: string } {
-  if ('preset' in params.arms) {
-    const p = ARM_MODEL_PRESETS[params.arms.preset];
-    if (!p)
-      throw new HttpError(
-        400,
-        'unknown_preset',
-        `arms.preset: no arm model "${params.arms.preset}"; use one of ${Object.keys(ARM_MODEL_PRESETS).join(', ')}.`,
-      );
-    return { arms: p.arms, label: p.label, source: p.source };
-  }
-  const arms = params.arms.custom.map((a) => ({
-    name: a.name,
-    RrefKpc: a.Rref,
-    betaRefDeg: a.betaRefDeg,
-    pitchDeg: a.pitchDeg,
-    betaMinDeg: a.betaMinDeg,
-    betaMaxDeg: a.betaMaxDeg,
-  }));
-  return { arms, label: 'custom arms', source: 'defined in this project' };
-}
-
-/** The analysis settings of a request; `linkRadiusArcsec` comes from the link run. */
-export function orderingSettings(
-  params: AnalysisParams,
-  linkRadiusArcsec: [number, number] | null = null,
-): OrderingSettings {
-  const curve = toolCurve(params.curve.name, params.curve.R0, params.curve.theta0);
-  const model = 'preset' in params.arms ? ARM_MODEL_PRESETS[params.arms.preset] : null;
-  const rescale =
-    'preset' in params.arms && params.arms.rescaleToCurveR0 === true && model !== null;
-  const arms = armsOf(params).arms;
-  return {
-    curve,
-    arms: rescale ? rescaleArms(arms, model.R0Kpc, curve.R0Kpc) : arms,
-    armWidthKpc: params.armWidthKpc,
-    patternSpeedKmsKpc: params.patternSpeed ?? null,
-    sigmaStreamKms: params.sigmaStreamKms,
-    R0ErrKpc: params.curve.R0Err ?? curve.R0ErrKpc ?? 0,
-    theta0ErrKms: params.curve.theta0Err ?? curve.theta0ErrKms ?? 0,
-    scaleHeightKpc: params.scaleHeightKpc,
-    nearFar: params.nearFar,
-    velocityFrom: params.velocityFrom,
-    resamples: params.resamples,
-    seed: params.seed,
-    mcDraws: params.mcDraws,
-    armsR0Kpc: rescale ? curve.R0Kpc : (model?.R0Kpc ?? null),
-    tangentNearTerminalKms: params.tangentNearTerminalKms ?? null,
-    linkRadiusArcsec,
-  };
-}
 
 export function armPresets() {
   return {

@@ -1,7 +1,8 @@
 import { csvLine } from '@/lib/export/csv';
 import { HttpError } from '@/lib/http/errors';
 import type { OrderingResult } from '@/lib/ordering';
-import { analysisSchema, armsOf, getAnalysis } from './analyses';
+import { armsOf } from '@/lib/analysis-settings';
+import { analysisSchema, getAnalysis } from './analyses';
 import { toolCurve } from '@/lib/calculators';
 import pkg from '@/package.json';
 

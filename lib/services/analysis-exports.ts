@@ -133,6 +133,8 @@ const ciText = (c: [number, number] | null, digits = 3) =>
 /** A methods text for the paper: one paragraph with every parameter and reference, then the results. */
 export async function analysisMethods(analysisId: string): Promise<string> {
   const { a, result } = await doneResult(analysisId);
+  // An external-galaxy analysis stores its methods text with its result when it finishes.
+  if (a.kind === 'external-galaxy') return (a.result as { methods: string }).methods;
   const p = analysisSchema.parse(a.params);
   const curve = toolCurve(p.curve.name, p.curve.R0, p.curve.theta0);
   const arms = armsOf(p);

@@ -174,6 +174,9 @@ describe('external-galaxy analysis through the API', () => {
     expect(a.result.methods).toMatch(/Egusa et al\. 2004/);
     expect(a.result.methods).toMatch(/Calabretta & Greisen 2002/);
     expect(a.result.methods).toMatch(/2000 bootstrap resamples/);
+    const methods = await t.viewer.get(`/api/analyses/${a.id}/methods.txt`);
+    expect(methods.status).toBe(200);
+    expect(await methods.text()).toBe(a.result.methods);
 
     const list = await t.viewer.json<{
       analyses: { id: string; kind: string; summary: { patternSpeedKmsKpc: number } | null }[];

@@ -48,7 +48,7 @@ describe('ordering analysis through the API', () => {
     seed: 3,
   });
 
-  const galaxy = generateGalaxy({ seed: 7, complexes: 800, interlopers: 0 });
+  const galaxy = generateGalaxy({ seed: 7, complexes: 1500, interlopers: 0 });
 
   beforeAll(async () => {
     t = await makeTeam('ordering');

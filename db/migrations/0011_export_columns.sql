@@ -1,0 +1,2 @@
+-- Placeholder until this migration has statements.
+SELECT 1;

@@ -256,6 +256,8 @@ export const links = mysqlTable(
   (t) => [
     primaryKey({ columns: [t.runId, t.id] }),
     index('links_complex').on(t.runId, t.complexId),
+    // Comparing two runs looks each link of one up in the other by its source pair.
+    index('links_key').on(t.runId, t.catalogA, t.rowA, t.catalogB, t.rowB),
   ],
 );
 

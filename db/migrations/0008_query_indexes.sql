@@ -1,2 +1,1 @@
--- Placeholder until this migration has statements.
-SELECT 1;
+CREATE INDEX `links_key` ON `links` (`run_id`,`catalog_a`,`row_a`,`catalog_b`,`row_b`);

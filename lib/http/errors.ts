@@ -21,3 +21,11 @@ export const forbidden = (what = 'do this') =>
 export const notFound = (what: string) => new HttpError(404, 'not_found', `${what} was not found.`);
 export const conflict = (message: string, details?: unknown) =>
   new HttpError(409, 'conflict', message, details);
+/** A request's query that MariaDB stopped at the statement time limit (db/statement-timeout.ts). */
+export const queryTimedOut = (what: string, seconds: number) =>
+  new HttpError(
+    503,
+    'query_timeout',
+    `This ${what} took longer than ${seconds} s and was stopped so the database stays available to others; narrow it with filters, or try again when the server is less busy.`,
+    { limitSeconds: seconds },
+  );

@@ -3,3 +3,4 @@ import './ingest';
 import './link-run';
 import './analysis';
 import './external-analysis';
+import './project-delete';

@@ -1,7 +1,8 @@
 import fs from 'node:fs';
 import { sql, type SQL } from 'drizzle-orm';
 import { z } from 'zod';
-import { db, pool } from '@/db/client';
+import { pool } from '@/db/client';
+import { withStatementTimeout, type LimitedDb } from '@/db/statement-timeout';
 import { HttpError } from '@/lib/http/errors';
 import { csvLine } from '@/lib/export/csv';
 import type { RowDataPacket } from 'mysql2';
@@ -50,18 +51,9 @@ async function assertReady(catalogId: string) {
   return c;
 }
 
-/** One page of canonical rows, sorted and filtered in SQL. */
-async function countRows(table: SQL, whereSql: SQL) {
-  const [[count]] = (await db.execute(
-    sql`SELECT COUNT(*) AS n FROM ${table} WHERE ${whereSql}`,
-  )) as unknown as [[{ n: number }]];
-  return Number(count.n);
-}
-
-export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
-  const c = await assertReady(catalogId);
-  const where: SQL[] = [sql`1 = 1`];
-  const table = rowsTable(catalogId);
+/** The filters of a rows query as one SQL condition (`1 = 1` when there are none). */
+function rowsWhere(q: RowsQuery): { whereSql: SQL; filtered: boolean } {
+  const where: SQL[] = [];
   if (q.q) where.push(sql`name LIKE ${`%${q.q.replace(/[%_\\]/g, (m) => `\\${m}`)}%`}`);
   if (q.lMin !== undefined && q.lMax !== undefined && q.lMin > q.lMax) {
     // From 340° to 20°, say: the range runs through l = 0°.
@@ -74,19 +66,57 @@ export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
   if (q.bMax !== undefined) where.push(sql`b <= ${q.bMax}`);
   if (q.vMin !== undefined) where.push(sql`v >= ${q.vMin}`);
   if (q.vMax !== undefined) where.push(sql`v <= ${q.vMax}`);
-  const whereSql = sql.join(where, sql` AND `);
+  return {
+    whereSql: where.length ? sql.join(where, sql` AND `) : sql`1 = 1`,
+    filtered: !!where.length,
+  };
+}
+
+/**
+ * The SQL of one page of rows. The page's row numbers are found first in the sort column's
+ * index alone (each secondary index also holds the primary key `row`, so the index covers
+ * "sort column, row"); only those rows are then read whole. With OFFSET over whole rows,
+ * MariaDB instead read and sorted the entire table for a deep page.
+ */
+export function rowsPageSql(catalogId: string, q: RowsQuery): SQL {
+  const table = rowsTable(catalogId);
+  const { whereSql } = rowsWhere(q);
   const column = sql.raw(`\`${SORTABLE[q.sort]}\``);
   const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
   const offset = (q.page - 1) * q.pageSize;
-  const [rows] = (await db.execute(sql`
-    SELECT \`row\`, line, name, l, b, v, radius_arcsec AS radiusArcsec, pos_err_arcsec AS posErrArcsec,
-           v_err_kms AS vErrKms, line_width_kms AS lineWidthKms, dist_kpc AS distKpc, dist_err_kpc AS distErrKpc
-    FROM ${table} WHERE ${whereSql}
-    ORDER BY ${column} ${dir}, \`row\` ${dir}
-    LIMIT ${q.pageSize} OFFSET ${offset}`)) as unknown as [Record<string, unknown>[]];
-  // Unfiltered, the total is the catalog's row count; counting a million rows per page is waste.
-  const total = where.length === 1 ? c.rowCount : await countRows(table, whereSql);
-  return { rows, total, page: q.page, pageSize: q.pageSize };
+  return sql`
+    SELECT t.\`row\`, t.line, t.name, t.l, t.b, t.v, t.radius_arcsec AS radiusArcsec,
+           t.pos_err_arcsec AS posErrArcsec, t.v_err_kms AS vErrKms, t.line_width_kms AS lineWidthKms,
+           t.dist_kpc AS distKpc, t.dist_err_kpc AS distErrKpc
+    FROM (SELECT \`row\` FROM ${table} WHERE ${whereSql}
+          ORDER BY ${column} ${dir}, \`row\` ${dir}
+          LIMIT ${q.pageSize} OFFSET ${offset}) page
+    JOIN ${table} t ON t.\`row\` = page.\`row\`
+    ORDER BY t.${column} ${dir}, t.\`row\` ${dir}`;
+}
+
+/**
+ * One page of canonical rows, sorted and filtered in SQL under the request statement limit
+ * (503 past it).
+ */
+export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
+  const c = await assertReady(catalogId);
+  const { whereSql, filtered } = rowsWhere(q);
+  return withStatementTimeout('page of rows', async (conn) => {
+    const [rows] = (await conn.execute(rowsPageSql(catalogId, q))) as unknown as [
+      Record<string, unknown>[],
+    ];
+    // Unfiltered, the total is the catalog's row count; counting a million rows per page is waste.
+    const total = filtered ? await countRows(conn, rowsTable(catalogId), whereSql) : c.rowCount;
+    return { rows, total, page: q.page, pageSize: q.pageSize };
+  });
+}
+
+async function countRows(conn: LimitedDb, table: SQL, whereSql: SQL) {
+  const [[count]] = (await conn.execute(
+    sql`SELECT COUNT(*) AS n FROM ${table} WHERE ${whereSql}`,
+  )) as unknown as [[{ n: number }]];
+  return Number(count.n);
 }
 
 /** The plot points file (Float32 l, b, v triples) of a ready catalog. */
@@ -105,12 +135,18 @@ export async function catalogPoints(catalogId: string) {
 const EXPORT_CHUNK = 5000;
 
 /**
- * The normalised catalog as CSV lines, read in primary-key order a chunk at a time so memory
- * stays flat; original columns follow the canonical ones, prefixed `orig_`.
+ * The normalised catalog as CSV lines. Readiness is checked before the first line (409 while
+ * the response can still say so, rather than a stream that breaks off); the lines are then read
+ * in primary-key order a chunk at a time so memory stays flat.
  */
-export async function* catalogCsv(catalogId: string): AsyncGenerator<string> {
+export async function catalogCsv(catalogId: string): Promise<AsyncGenerator<string>> {
   const c = await assertReady(catalogId);
-  const original = (c.columns ?? []).map((n) => `orig_${n}`);
+  return catalogCsvLines(catalogId, c.columns ?? []);
+}
+
+/** Original columns follow the canonical ones, prefixed `orig_`. */
+async function* catalogCsvLines(catalogId: string, columns: string[]): AsyncGenerator<string> {
+  const original = columns.map((n) => `orig_${n}`);
   yield csvLine([
     'row',
     'line',

@@ -2,6 +2,7 @@ import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool } from '@/db/client';
+import { withStatementTimeout } from '@/db/statement-timeout';
 import {
   analysisComplexes,
   auditLog,
@@ -90,7 +91,8 @@ export function complexJson(c: ComplexRow, latest: LatestAnalysis | null, placed
 
 /**
  * One page of a run's complexes, filtered and sorted in SQL on indexed columns; each carries its
- * row of the run's latest done analysis (found once, LEFT JOINed on its id).
+ * row of the run's latest done analysis (found once, LEFT JOINed on its id). Runs under the
+ * request statement limit (503 past it).
  */
 export async function complexesPage(runId: string, q: ComplexesQuery) {
   const run = await requireDoneRun(runId);
@@ -113,35 +115,52 @@ export async function complexesPage(runId: string, q: ComplexesQuery) {
   }
   const whereSql = and(...where)!;
   const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
-  const rows = await db
-    .select({ c: complexes, reviewerName: users.name, placed: analysisComplexes })
-    .from(complexes)
-    .leftJoin(users, eq(users.id, complexes.reviewedBy))
-    .leftJoin(analysisComplexes, analysisComplexesOn(latest?.id ?? null))
-    .where(whereSql)
-    .orderBy(sql`${sql.raw(SORTS[q.sort])} ${dir}`, sql`complexes.id ${dir}`)
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize);
+  const order = [sql`${sql.raw(SORTS[q.sort])} ${dir}`, sql`complexes.id ${dir}`];
   const summary = (run.summary ?? {}) as { complexes?: number };
-  const total =
-    where.length === 1
-      ? Number(summary.complexes ?? 0)
-      : Number(
-          (
-            await db
-              .select({ n: sql<number>`COUNT(*)` })
-              .from(complexes)
-              .where(whereSql)
-          )[0].n,
-        );
-  return {
-    complexes: rows.map((r) =>
-      complexJson({ ...r.c, reviewerName: r.reviewerName }, latest, r.placed),
-    ),
-    total,
-    page: q.page,
-    pageSize: q.pageSize,
-  };
+  return withStatementTimeout('list of complexes', async (conn) => {
+    // The page's ids first, from the sort column's (run, column, id) index where the filters
+    // allow; only those complexes are then read whole with their reviewer and analysis row.
+    const idsFrom = conn.select({ id: complexes.id }).from(complexes).$dynamic();
+    const sortedIds =
+      q.sort === 'dist'
+        ? idsFrom.leftJoin(analysisComplexes, analysisComplexesOn(latest?.id ?? null))
+        : idsFrom;
+    const ids = (
+      await sortedIds
+        .where(whereSql)
+        .orderBy(...order)
+        .limit(q.pageSize)
+        .offset((q.page - 1) * q.pageSize)
+    ).map((r) => r.id);
+    const rows = ids.length
+      ? await conn
+          .select({ c: complexes, reviewerName: users.name, placed: analysisComplexes })
+          .from(complexes)
+          .leftJoin(users, eq(users.id, complexes.reviewedBy))
+          .leftJoin(analysisComplexes, analysisComplexesOn(latest?.id ?? null))
+          .where(and(eq(complexes.runId, runId), inArray(complexes.id, ids)))
+          .orderBy(...order)
+      : [];
+    const total =
+      where.length === 1
+        ? Number(summary.complexes ?? 0)
+        : Number(
+            (
+              await conn
+                .select({ n: sql<number>`COUNT(*)` })
+                .from(complexes)
+                .where(whereSql)
+            )[0].n,
+          );
+    return {
+      complexes: rows.map((r) =>
+        complexJson({ ...r.c, reviewerName: r.reviewerName }, latest, r.placed),
+      ),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    };
+  });
 }
 
 async function loadComplex(runId: string, complexId: number) {

@@ -1,11 +1,12 @@
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '@/db/client';
-import { auditLog, projectMembers, projects } from '@/db/schema';
+import { auditLog, invitations, jobs, projectMembers, projects } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import type { ProjectRole } from '@/lib/auth/roles';
 import { notFound } from '@/lib/http/errors';
 import { projectTargetSchema } from '@/lib/schemas/analyses';
+import { PROJECT_DELETE_JOB } from './project-purge';
 
 export const projectNameSchema = z.string().trim().min(1, 'Give the project a name.').max(200);
 export const createProjectSchema = z.object({
@@ -116,6 +117,26 @@ export async function updateProject(
   return getProject(id, role);
 }
 
-export async function deleteProject(id: string): Promise<void> {
-  await db.delete(projects).where(eq(projects.id, id));
+/**
+ * Deletes a project: it disappears for everyone at once (members and invitations go, so every
+ * request about it answers 404 and no list shows it), its queued jobs are cancelled and its
+ * running ones asked to stop, and a `project-delete` job removes its data (purgeProject). That
+ * job carries no project id, so the project's foreign keys do not take it along.
+ */
+export async function deleteProject(id: string, userId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx.delete(projectMembers).where(eq(projectMembers.projectId, id));
+    await tx.delete(invitations).where(eq(invitations.projectId, id));
+    await tx
+      .update(jobs)
+      .set({ status: 'cancelled', error: 'The project was deleted.', finishedAt: sql`NOW(3)` })
+      .where(and(eq(jobs.projectId, id), eq(jobs.status, 'queued')));
+    await tx
+      .update(jobs)
+      .set({ cancelRequested: true })
+      .where(and(eq(jobs.projectId, id), eq(jobs.status, 'running')));
+    await tx
+      .insert(jobs)
+      .values({ kind: PROJECT_DELETE_JOB, payload: { projectId: id }, createdBy: userId });
+  });
 }

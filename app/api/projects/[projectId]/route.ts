@@ -26,7 +26,7 @@ export const PATCH = route<P>(async (req, { projectId }) => {
 });
 
 export const DELETE = route<P>(async (req, { projectId }) => {
-  await requireProjectRole(projectId, 'owner', req, 'delete the project');
-  await deleteProject(projectId);
+  const { user } = await requireProjectRole(projectId, 'owner', req, 'delete the project');
+  await deleteProject(projectId, user.id);
   return new Response(null, { status: 204 });
 });

@@ -33,6 +33,8 @@ export const users = mysqlTable('users', {
   passwordHash: varchar('password_hash', { length: 100 }).notNull(),
   siteRole: mysqlEnum('site_role', SITE_ROLES).notNull().default('member'),
   notifyRunEmails: boolean('notify_run_emails').notNull().default(true),
+  /** Carried in each session; raising it (sign-out, reset, "sign out everywhere") ends them all. */
+  sessionVersion: int('session_version').notNull().default(0),
   createdAt: createdAt(),
 });
 
@@ -52,11 +54,30 @@ export const signInAttempts = mysqlTable(
     id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
     email: varchar('email', { length: 254 }).notNull(),
     succeeded: boolean('succeeded').notNull(),
+    /** The client address (lib/http/client-address.ts) the attempt came from. */
+    client: varchar('client', { length: 64 }).notNull().default(''),
     at: timestamp('at', { fsp: 3 })
       .notNull()
       .default(sql`CURRENT_TIMESTAMP(3)`),
   },
-  (t) => [index('sign_in_attempts_email_at').on(t.email, t.at)],
+  (t) => [
+    index('sign_in_attempts_email_at').on(t.email, t.at),
+    index('sign_in_attempts_client_at').on(t.client, t.at),
+  ],
+);
+
+/** Counted events of the sign-up and reset rate limits (lib/services/rate-limits.ts). */
+export const rateEvents = mysqlTable(
+  'rate_events',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    action: varchar('action', { length: 32 }).notNull(),
+    subject: varchar('subject', { length: 320 }).notNull(),
+    at: timestamp('at', { fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index('rate_events_action_subject_at').on(t.action, t.subject, t.at)],
 );
 
 export const projects = mysqlTable('projects', {

@@ -1,6 +1,7 @@
 'use client';
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
@@ -31,6 +32,15 @@ export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean 
       setFresh(r.token);
       setName('');
       qc.invalidateQueries({ queryKey: ['tokens'] });
+    },
+    onError: (e) => setError(e.message),
+  });
+  const router = useRouter();
+  const endSessions = useMutation({
+    mutationFn: () => api('/api/account/sessions/revoke', { method: 'POST' }),
+    onSuccess: () => {
+      router.push('/signin');
+      router.refresh();
     },
     onError: (e) => setError(e.message),
   });
@@ -91,6 +101,19 @@ export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean 
             </li>
           ))}
         </ul>
+      </Panel>
+      <Panel title="Sessions">
+        <p className="mb-3 text-sm text-ink-soft">
+          Ends every session of this account on every device, this one too. Personal API tokens keep
+          working (revoke them above); a password reset ends sessions and revokes tokens.
+        </p>
+        <Button
+          variant="quiet"
+          onClick={() => endSessions.mutate()}
+          disabled={endSessions.isPending}
+        >
+          Sign out everywhere
+        </Button>
       </Panel>
       <Panel title="Notifications">
         <label className="flex items-center gap-2 text-sm">

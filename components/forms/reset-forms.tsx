@@ -6,6 +6,7 @@ import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNote } from '@/components/ui/panel';
+import { RESET_CONSEQUENCES } from '@/lib/schemas/account';
 
 export function ResetRequestForm() {
   const [email, setEmail] = useState('');
@@ -38,6 +39,7 @@ export function ResetRequestForm() {
         value={email}
         onChange={(e) => setEmail(e.target.value)}
       />
+      <p className="text-sm text-ink-soft">{RESET_CONSEQUENCES}</p>
       <ErrorNote>{error}</ErrorNote>
       <Button type="submit" className="w-full">
         Send reset link
@@ -53,7 +55,7 @@ export function ResetConfirmForm({ token }: { token: string }) {
   if (done)
     return (
       <p className="text-sm">
-        Your password is changed.{' '}
+        Your password is changed. Every session has ended and your API tokens are revoked.{' '}
         <Link className="text-accent underline" href="/signin">
           Sign in
         </Link>
@@ -85,6 +87,7 @@ export function ResetConfirmForm({ token }: { token: string }) {
         onChange={(e) => setPassword(e.target.value)}
         hint="At least 10 characters."
       />
+      <p className="text-sm text-ink-soft">{RESET_CONSEQUENCES}</p>
       <ErrorNote>{error}</ErrorNote>
       <Button type="submit" className="w-full">
         Set new password

@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { signInWithPassword } from '@/lib/auth/client-sign-in';
+import { safeNext } from '@/lib/auth/safe-next';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNote } from '@/components/ui/panel';
@@ -24,7 +25,7 @@ export function SignInForm({ next, email: initialEmail = '' }: { next: string; e
         setBusy(false);
         if (problem) setError(problem);
         else {
-          router.push(next);
+          router.push(safeNext(next));
           router.refresh();
         }
       }}

@@ -4,6 +4,7 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
 import { signInWithPassword } from '@/lib/auth/client-sign-in';
+import { safeNext } from '@/lib/auth/safe-next';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNote } from '@/components/ui/panel';
@@ -24,7 +25,7 @@ export function SignUpForm({ next, email: fixedEmail }: { next: string; email?: 
           await api('/api/account/signup', { method: 'POST', json: form });
           const problem = await signInWithPassword(form.email, form.password);
           if (problem) throw new Error(problem);
-          router.push(next);
+          router.push(safeNext(next));
           router.refresh();
         } catch (err) {
           setError(err instanceof Error ? err.message : String(err));

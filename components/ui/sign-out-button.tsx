@@ -7,6 +7,7 @@ export function SignOutButton() {
   return (
     <button
       className="text-sm text-ink-soft hover:text-ink"
+      title="Ends this account's sessions on every device"
       onClick={async () => {
         const { csrfToken } = await fetch('/api/auth/csrf').then((r) => r.json());
         await fetch('/api/auth/signout', {

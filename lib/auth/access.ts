@@ -3,7 +3,7 @@ import { headers } from 'next/headers';
 import { HttpError, forbidden, notFound, unauthenticated } from '@/lib/http/errors';
 import { roleInProject } from '@/lib/services/projects';
 import { userForToken } from '@/lib/services/tokens';
-import { getUser, type PublicUser } from '@/lib/services/users';
+import { getSessionUser, type PublicUser } from '@/lib/services/users';
 import { authOptions } from './options';
 import { roleAtLeast, type ProjectRole } from './roles';
 
@@ -38,9 +38,11 @@ export async function currentCaller(method = 'GET'): Promise<Caller | null> {
     return user ? { user, via: 'token' } : null;
   }
   const session = await getServerSession(authOptions);
-  const id = (session?.user as { id?: string } | undefined)?.id;
-  if (!id) return null;
-  const user = await getUser(id);
+  const { id, sv } = (session?.user ?? {}) as { id?: string; sv?: unknown };
+  // A session from before session versions (no `sv`) or from before the latest sign-out,
+  // reset or "sign out everywhere" is no session.
+  if (!id || typeof sv !== 'number') return null;
+  const user = await getSessionUser(id, sv);
   if (!user) return null;
   assertSameOrigin(h, method);
   return { user, via: 'session' };

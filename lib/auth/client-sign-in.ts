@@ -1,6 +1,6 @@
 /**
  * Signs in through next-auth's credentials endpoint from the browser. Written out (instead of
- * next-auth/react's signIn) so that the 429 of the rate limit reaches the form as a message.
+ * next-auth/react's signIn) so that a refusal (the 429 of a rate limit) reaches the form as a message.
  */
 export async function signInWithPassword(email: string, password: string): Promise<string | null> {
   const csrf = await fetch('/api/auth/csrf').then(
@@ -11,11 +11,12 @@ export async function signInWithPassword(email: string, password: string): Promi
     headers: { 'content-type': 'application/x-www-form-urlencoded', 'x-auth-return-redirect': '1' },
     body: new URLSearchParams({ csrfToken: csrf.csrfToken, email, password, json: 'true' }),
   });
-  if (res.status === 429) {
-    const body = await res.json().catch(() => null);
-    return body?.error?.message ?? 'Too many attempts; wait a few minutes.';
-  }
-  const body = (await res.json().catch(() => null)) as { url?: string } | null;
+  const body = (await res.json().catch(() => null)) as {
+    url?: string;
+    error?: { message?: string };
+  } | null;
+  // Our own refusals (limits, a malformed form) carry a message for the form.
+  if (body?.error?.message) return body.error.message;
   if (!res.ok || !body?.url || new URL(body.url, location.origin).searchParams.get('error')) {
     return 'That e-mail address and password do not match an account.';
   }

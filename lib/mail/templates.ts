@@ -3,7 +3,7 @@
 export function passwordResetMail(link: string) {
   return {
     subject: 'Reset your Lanewise password',
-    text: `Someone asked to reset the password of this Lanewise account.\n\nChoose a new password here (the link works once, for one hour):\n${link}\n\nIf it was not you, ignore this message; your password stays as it is.\n`,
+    text: `Someone asked to reset the password of this Lanewise account.\n\nChoose a new password here (the link works once, for one hour):\n${link}\n\nSetting a new password ends every session and revokes your API tokens: you are signed out on every device, scripts need a new token, and any other reset link you were sent stops working.\n\nIf it was not you, ignore this message; your password stays as it is.\n`,
   };
 }
 

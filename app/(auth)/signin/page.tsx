@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { safeNext } from '@/lib/auth/safe-next';
 import { SignInForm } from '@/components/forms/sign-in-form';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '@/seed/demo-accounts';
 import { env } from '@/lib/env';
@@ -11,17 +12,14 @@ export default async function SignInPage({
   searchParams: Promise<{ next?: string; email?: string }>;
 }) {
   const { next, email } = await searchParams;
-  const safeNext = next?.startsWith('/') && !next.startsWith('//') ? next : '/projects';
+  const target = safeNext(next);
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-semibold">Sign in</h1>
-      <SignInForm next={safeNext} email={email} />
+      <SignInForm next={target} email={email} />
       <p className="text-sm text-ink-soft">
         New here?{' '}
-        <Link
-          className="text-accent underline"
-          href={`/signup?next=${encodeURIComponent(safeNext)}`}
-        >
+        <Link className="text-accent underline" href={`/signup?next=${encodeURIComponent(target)}`}>
           Create an account
         </Link>
         {' · '}

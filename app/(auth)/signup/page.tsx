@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { safeNext } from '@/lib/auth/safe-next';
 import { SignUpForm } from '@/components/forms/sign-up-form';
 
 export const metadata = { title: 'Create an account' };
@@ -9,17 +10,14 @@ export default async function SignUpPage({
   searchParams: Promise<{ next?: string; email?: string }>;
 }) {
   const { next, email } = await searchParams;
-  const safeNext = next?.startsWith('/') && !next.startsWith('//') ? next : '/projects';
+  const target = safeNext(next);
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-semibold">Create an account</h1>
-      <SignUpForm next={safeNext} email={email} />
+      <SignUpForm next={target} email={email} />
       <p className="text-sm text-ink-soft">
         Have an account?{' '}
-        <Link
-          className="text-accent underline"
-          href={`/signin?next=${encodeURIComponent(safeNext)}`}
-        >
+        <Link className="text-accent underline" href={`/signin?next=${encodeURIComponent(target)}`}>
           Sign in
         </Link>
       </p>

@@ -1,8 +1,8 @@
+import { clientAddressOf } from '@/lib/http/client-address';
 import { json, jsonBody, route } from '@/lib/http/handler';
-import { createUser, signUpSchema } from '@/lib/services/users';
+import { signUp } from '@/lib/services/users';
 
 export const POST = route(async (req) => {
-  const input = signUpSchema.parse(await jsonBody(req));
-  const user = await createUser(input);
+  const user = await signUp(await jsonBody(req), clientAddressOf(req.headers));
   return json({ user: { id: user.id, email: user.email, name: user.name } }, 201);
 });

@@ -1,11 +1,9 @@
-import { z } from 'zod';
+import { clientAddressOf } from '@/lib/http/client-address';
 import { json, jsonBody, route } from '@/lib/http/handler';
 import { resetPassword } from '@/lib/services/users';
 
+/** Sets the new password; this also ends every session and revokes every API token. */
 export const POST = route(async (req) => {
-  const { token, password } = z
-    .object({ token: z.string().min(1), password: z.string() })
-    .parse(await jsonBody(req));
-  await resetPassword(token, password);
+  await resetPassword(await jsonBody(req), clientAddressOf(req.headers));
   return json({ ok: true });
 });

@@ -51,7 +51,7 @@ const personName = (p: Analysis['createdBy']) =>
 function Fact({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <div>
-      <dt className="text-xs uppercase tracking-wide text-ink-soft">{label}</dt>
+      <dt className="text-xs text-ink-soft">{label}</dt>
       <dd className="mt-0.5">{children}</dd>
     </div>
   );

@@ -36,7 +36,7 @@ export function ArmsEditor({
     <div className="space-y-2">
       <div className="overflow-x-auto rounded-md border border-rule bg-white/70">
         <table className="w-full text-sm" aria-label="Custom arms">
-          <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="border-b border-rule text-left text-xs text-ink-soft">
             <tr>
               {COLUMNS.map((c) => (
                 <th key={c.key} className={`px-2 py-1.5 ${c.numeric ? 'text-right' : ''}`}>

@@ -83,9 +83,7 @@ export function SettingsPanel({
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,460px)]">
         <div className="space-y-5">
           <fieldset className="space-y-3">
-            <legend className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
-              Rotation
-            </legend>
+            <legend className="mb-1 text-xs font-semibold text-ink-soft">Rotation</legend>
             <SelectField
               label="Rotation curve"
               value={draft.curveName}
@@ -169,9 +167,7 @@ export function SettingsPanel({
           </fieldset>
 
           <fieldset className="space-y-3">
-            <legend className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
-              Distances and arms
-            </legend>
+            <legend className="mb-1 text-xs font-semibold text-ink-soft">Distances and arms</legend>
             <SelectField
               label="Near/far rule"
               value={draft.nearFar}
@@ -222,9 +218,7 @@ export function SettingsPanel({
           </fieldset>
 
           <fieldset className="space-y-3">
-            <legend className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
-              Arm model
-            </legend>
+            <legend className="mb-1 text-xs font-semibold text-ink-soft">Arm model</legend>
             <div className="flex flex-wrap gap-4 text-sm" role="radiogroup" aria-label="Arm model">
               {(
                 [

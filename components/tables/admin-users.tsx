@@ -30,7 +30,7 @@ export function AdminUsers({ myId }: { myId: string }) {
     <>
       <ErrorNote>{error}</ErrorNote>
       <table className="w-full rounded-lg border border-rule bg-white/70 text-sm">
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+        <thead className="text-left text-xs text-ink-soft">
           <tr>
             <th className="px-3 py-2">Name</th>
             <th>E-mail</th>

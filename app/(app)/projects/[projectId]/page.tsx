@@ -1,8 +1,14 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import Link from 'next/link';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { getProject } from '@/lib/services/projects';
 import { listMembers } from '@/lib/services/members';
+
+export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  return projectPageTitle(projectId, null);
+}
 
 export default async function ProjectOverview({
   params,

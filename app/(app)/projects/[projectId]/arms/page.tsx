@@ -1,3 +1,4 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { ExternalWorkspace } from '@/components/external/external-workspace';
 import { projectTarget } from '@/components/external/target';
 import { OrderingWorkspace } from '@/components/ordering/ordering-workspace';
@@ -5,6 +6,11 @@ import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
 import { getProject } from '@/lib/services/projects';
+
+export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  return projectPageTitle(projectId, 'Arms & ordering');
+}
 
 export default async function ArmsPage({
   params,

@@ -1,6 +1,23 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { ComplexesSection } from '@/components/link-runs/complexes-section';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
+
+export async function generateMetadata({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<{ run?: string | string[] }>;
+}) {
+  const { projectId } = await params;
+  const { run } = await searchParams;
+  return projectPageTitle(
+    projectId,
+    'Complexes',
+    typeof run === 'string' && run ? { runId: run } : {},
+  );
+}
 
 export default async function ComplexesPage({
   params,

@@ -1,8 +1,14 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import Link from 'next/link';
 import { RunList } from '@/components/link-runs/run-list';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
+
+export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  return projectPageTitle(projectId, 'Link runs');
+}
 
 export default async function LinkRunsPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;

@@ -1,8 +1,14 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { TargetSettings } from '@/components/external/target-settings';
 import { ProjectSettingsForm } from '@/components/forms/project-settings-form';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { getProject } from '@/lib/services/projects';
+
+export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  return projectPageTitle(projectId, 'Settings');
+}
 
 export default async function SettingsPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;

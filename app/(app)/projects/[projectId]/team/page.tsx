@@ -1,6 +1,12 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { TeamManager } from '@/components/forms/team-manager';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
+
+export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  return projectPageTitle(projectId, 'Team');
+}
 
 export default async function TeamPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;

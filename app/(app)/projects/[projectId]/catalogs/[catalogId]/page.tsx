@@ -1,6 +1,16 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
 import { CatalogDetail } from './catalog-detail';
+
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ projectId: string; catalogId: string }>;
+}) {
+  const { projectId, catalogId } = await params;
+  return projectPageTitle(projectId, 'Catalog', { catalogId });
+}
 
 export default async function CatalogPage({
   params,

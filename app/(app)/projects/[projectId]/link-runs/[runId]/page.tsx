@@ -1,6 +1,16 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { RunDetail } from '@/components/link-runs/run-detail';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
+
+export async function generateMetadata({
+  params,
+}: {
+  params: Promise<{ projectId: string; runId: string }>;
+}) {
+  const { projectId, runId } = await params;
+  return projectPageTitle(projectId, 'Link run', { runId });
+}
 
 export default async function LinkRunPage({
   params,

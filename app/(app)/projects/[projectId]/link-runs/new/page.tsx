@@ -1,7 +1,13 @@
+import { projectPageTitle } from '@/components/ui/page-title';
 import { LinkRunForm } from '@/components/forms/link-run-form';
 import { EmptyState, PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
+
+export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  return projectPageTitle(projectId, 'New link run');
+}
 
 export default async function NewLinkRunPage({
   params,

@@ -5,7 +5,12 @@
  * kind against `csvCell` on the real server.
  */
 
-/** How a column's values become CSV text. `raw`: our own identifiers and integers, never user text. */
+import { checkDecimals } from './decimals';
+
+/**
+ * How a column's values become CSV text. `raw`: our own identifiers and integers, never user
+ * text; `number`: integers as stored, doubles rounded to the column's decimals.
+ */
 export type CsvSqlKind = 'raw' | 'number' | 'text' | 'boolean' | 'time';
 
 /** A MariaDB string literal holding `text` (backslash and quote escaped; other characters as is). */
@@ -28,12 +33,27 @@ function textCell(x: string): string {
   return `CASE WHEN ${x} IS NULL THEN '' WHEN ${x} REGEXP ${RISKY} THEN ${quoted} ELSE ${x} END`;
 }
 
-/** The CSV cell of SQL expression `x` (NULL → empty cell). */
-export function csvCellSql(x: string, kind: CsvSqlKind): string {
+/**
+ * The cell of a DOUBLE rounded to `decimals` places as {@link formatDecimals} writes it: the cast
+ * rounds half away from zero the shortest decimal of the double; trailing zeros and then a bare
+ * point are cut (decimals ≥ 1, so a point is always there to stop the cut); zero is never `-0`.
+ */
+function decimalsSql(x: string, decimals: number): string {
+  checkDecimals(decimals, 'csvCellSql');
+  return `IFNULL(TRIM(TRAILING '.' FROM TRIM(TRAILING '0' FROM CAST(${x} AS DECIMAL(65, ${decimals})))), '')`;
+}
+
+/**
+ * The CSV cell of SQL expression `x` (NULL → empty cell); a `number` with `decimals` is rounded
+ * to that many places.
+ */
+export function csvCellSql(x: string, kind: CsvSqlKind, decimals?: number): string {
   switch (kind) {
-    case 'raw':
     case 'number':
-      // DOUBLE → text is the shortest round-trip form, as JavaScript's String(number).
+      if (decimals !== undefined) return decimalsSql(x, decimals);
+      return `IFNULL(${x}, '')`;
+    case 'raw':
+      // Integers and our own identifiers: written as stored.
       return `IFNULL(${x}, '')`;
     case 'boolean':
       return `IF(${x} IS NULL, '', IF(${x}, 'true', 'false'))`;
@@ -46,6 +66,6 @@ export function csvCellSql(x: string, kind: CsvSqlKind): string {
 }
 
 /** One CSV record (RFC 4180, CRLF) of the given cells. */
-export function csvLineSql(cells: { sql: string; kind: CsvSqlKind }[]): string {
-  return `CONCAT(CONCAT_WS(',', ${cells.map((c) => csvCellSql(c.sql, c.kind)).join(', ')}), '\\r\\n')`;
+export function csvLineSql(cells: { sql: string; kind: CsvSqlKind; decimals?: number }[]): string {
+  return `CONCAT(CONCAT_WS(',', ${cells.map((c) => csvCellSql(c.sql, c.kind, c.decimals)).join(', ')}), '\\r\\n')`;
 }

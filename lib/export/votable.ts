@@ -1,15 +1,25 @@
+import { formatDecimals } from './decimals';
 import { textToByteStream } from './stream';
 
-/** VOTable primitive datatypes Lanewise writes. */
-export type VotableDatatype = 'double' | 'float' | 'int' | 'long' | 'char' | 'boolean';
+/** VOTable primitive datatypes Lanewise writes (`unicodeChar` for text that may not be ASCII). */
+export type VotableDatatype =
+  'double' | 'float' | 'int' | 'long' | 'char' | 'unicodeChar' | 'boolean';
 
-/** A column of the written table (IVOA VOTable 1.4 FIELD). `char` columns default to `arraysize="*"`. */
+/**
+ * A column of the written table (IVOA VOTable 1.4 FIELD). Text columns default to
+ * `arraysize="*"`. `precision` is the number of decimal places (the VOTable 1.4 `precision` attribute, "F" form)
+ * each value of a floating-point column is written to (see lib/export/decimals.ts).
+ */
 export interface VotableField {
   name: string;
   datatype: VotableDatatype;
+  /** An XML ID, for readers that key fields by ID; must be an NCName. */
+  id?: string;
   unit?: string;
   ucd?: string;
   arraysize?: string;
+  precision?: number;
+  xtype?: string;
   description?: string;
 }
 
@@ -48,22 +58,28 @@ export function xmlEscape(text: string): string {
     .replace(/[&<>"']/g, (c) => XML_ESCAPES[c]);
 }
 
-function cellText(value: unknown, datatype: VotableDatatype): string {
+function cellText(value: unknown, field: VotableField): string {
   if (value === null || value === undefined) return '';
   if (typeof value === 'number') {
     if (!Number.isFinite(value)) return '';
-    return datatype === 'int' || datatype === 'long' ? String(Math.trunc(value)) : String(value);
+    if (field.datatype === 'int' || field.datatype === 'long') return String(Math.trunc(value));
+    return field.precision === undefined ? String(value) : formatDecimals(value, field.precision);
   }
   if (typeof value === 'boolean') return value ? 'T' : 'F';
   return xmlEscape(String(value));
 }
 
+const isText = (d: VotableDatatype) => d === 'char' || d === 'unicodeChar';
+
 function attrs(f: VotableField): string {
-  let s = ` name="${xmlEscape(f.name)}" datatype="${f.datatype}"`;
-  const arraysize = f.arraysize ?? (f.datatype === 'char' ? '*' : undefined);
+  let s = f.id ? ` ID="${xmlEscape(f.id)}"` : '';
+  s += ` name="${xmlEscape(f.name)}" datatype="${f.datatype}"`;
+  const arraysize = f.arraysize ?? (isText(f.datatype) ? '*' : undefined);
   if (arraysize !== undefined) s += ` arraysize="${xmlEscape(arraysize)}"`;
+  if (f.precision !== undefined) s += ` precision="${f.precision}"`;
   if (f.unit) s += ` unit="${xmlEscape(f.unit)}"`;
   if (f.ucd) s += ` ucd="${xmlEscape(f.ucd)}"`;
+  if (f.xtype) s += ` xtype="${xmlEscape(f.xtype)}"`;
   return s;
 }
 
@@ -75,7 +91,7 @@ function describe(description: string | undefined, indent: string): string {
  * Writes a VOTable 1.4 document with one RESOURCE and one TABLE in TABLEDATA serialisation,
  * as text pieces pulled lazily (rows in pieces of about 64 kB), so exports of millions of rows
  * stream. Cells: null, undefined and NaN/±Infinity become empty `<TD></TD>`; booleans `T`/`F`;
- * text is XML-escaped.
+ * numbers of a field with `precision` to that many decimals; text is XML-escaped.
  */
 export async function* votableStream(options: VotableOptions): AsyncGenerator<string> {
   const { fields } = options;
@@ -106,8 +122,7 @@ export async function* votableStream(options: VotableOptions): AsyncGenerator<st
       );
     }
     piece += '          <TR>';
-    for (let i = 0; i < row.length; i++)
-      piece += `<TD>${cellText(row[i], fields[i].datatype)}</TD>`;
+    for (let i = 0; i < row.length; i++) piece += `<TD>${cellText(row[i], fields[i])}</TD>`;
     piece += '</TR>\n';
     if (piece.length > 65_536) {
       yield piece;

@@ -1,7 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import type { RowDataPacket } from 'mysql2';
 import { closeDb, pool } from '@/db/client';
+import fc from 'fast-check';
 import { csvCell } from '@/lib/export/csv';
+import { formatDecimals } from '@/lib/export/decimals';
 import { csvCellSql, csvLineSql, type CsvSqlKind } from '@/lib/export/csv-sql';
 
 /** Asks the real MariaDB for the CSV cell of `value` held in a column of type `type`. */
@@ -74,6 +76,47 @@ describe('CSV cells written by MariaDB', () => {
       expect(Number(await sqlCell(x, 'DOUBLE', 'number'))).toBe(x);
     expect(await sqlCell(null, 'DOUBLE', 'number')).toBe('');
     expect(await sqlCell(42, 'SIGNED', 'number')).toBe('42');
+  });
+
+  it('write doubles rounded to stated decimals exactly as formatDecimals does', async () => {
+    const edge = [
+      41.204450000115116, // issue #18
+      1.2699999999999996, // issue #18
+      1.005,
+      -1.005,
+      0.125,
+      2.675,
+      9.9995,
+      -0.004,
+      -0,
+      1.5e-8,
+      5e-9,
+      4.9e-9,
+      6.02e23,
+      359.999999996,
+      -89.99999999,
+      123456789.125,
+      1e-300,
+    ];
+    const random = fc.sample(fc.double({ min: -1e7, max: 1e7, noNaN: true }), 400);
+    const values = [...edge, ...random];
+    for (const d of [3, 4, 8]) {
+      const rows = values.map(() => `SELECT ? AS i, CAST(? AS DOUBLE) AS x`).join(' UNION ALL ');
+      const [out] = await pool().query<RowDataPacket[]>(
+        `SELECT t.i, CAST(t.x AS CHAR) AS x, ${csvCellSql('t.x', 'number', d)} AS cell FROM (${rows}) t ORDER BY t.i`,
+        // As text: MariaDB reads a string into a double correctly rounded (a DECIMAL literal is not).
+        values.flatMap((x, i) => [i, String(x)]),
+      );
+      expect(out.length).toBe(values.length);
+      for (const r of out) {
+        const x = values[Number(r.i)];
+        // The database holds the same double (read as text: the driver's own number parser
+        // can be an ulp off), so any difference is in the writing.
+        expect(Number(r.x)).toBe(x === 0 ? Number(r.x) : x);
+        expect([x, d, String(r.cell)]).toEqual([x, d, formatDecimals(x, d)]);
+      }
+    }
+    expect(await sqlCell(null, 'DOUBLE', 'number')).toBe('');
   });
 
   it('write booleans and times as the JavaScript writer does', async () => {

@@ -110,6 +110,30 @@ describe('VOTable writer', () => {
     );
   });
 
+  it('writes a field with a precision to that many decimals, and its ID, xtype and text type', async () => {
+    const xml = await collect(
+      votableStream({
+        resourceName: 'r',
+        tableName: 't',
+        fields: [
+          { name: 'l', id: 'l_deg', datatype: 'double', precision: 8, unit: 'deg' },
+          { name: 'when', datatype: 'char', arraysize: '24', xtype: 'timestamp' },
+          { name: 'note', datatype: 'unicodeChar' },
+        ],
+        rows: [[41.204450000115116, '2026-03-04T05:06:07.089Z', 'Núcleo Ω']],
+      }),
+    );
+    expect(xml).toContain(
+      '<FIELD ID="l_deg" name="l" datatype="double" precision="8" unit="deg"/>',
+    );
+    expect(xml).toContain('<FIELD name="when" datatype="char" arraysize="24" xtype="timestamp"/>');
+    expect(xml).toContain('<FIELD name="note" datatype="unicodeChar" arraysize="*"/>');
+    // issue #18: the stored double, not its noise; lib/export/decimals.ts gives the rule
+    expect(xml).toContain(
+      '<TR><TD>41.20445</TD><TD>2026-03-04T05:06:07.089Z</TD><TD>Núcleo Ω</TD></TR>',
+    );
+  });
+
   it('escapes XML special characters and drops characters XML cannot carry', () => {
     expect(xmlEscape(`a<b>&"c"'\u0001\u0007z`)).toBe('a&lt;b&gt;&amp;&quot;c&quot;&apos;z');
   });

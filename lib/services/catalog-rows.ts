@@ -76,21 +76,33 @@ function rowsWhere(q: RowsQuery): { whereSql: SQL; filtered: boolean } {
  * The SQL of one page of rows. The page's row numbers are found first in the sort column's
  * index alone (each secondary index also holds the primary key `row`, so the index covers
  * "sort column, row"); only those rows are then read whole. With OFFSET over whole rows,
- * MariaDB instead read and sorted the entire table for a deep page.
+ * MariaDB instead read and sorted the entire table for a deep page. Given the row count of an
+ * unfiltered table, a page in its far half is counted from the other end of the index, so the
+ * walk is never longer than half the table; (column, row) is a total order, so reversed it is
+ * exactly the same sequence backwards, and the outer ORDER BY puts the page back.
  */
-export function rowsPageSql(catalogId: string, q: RowsQuery): SQL {
+export function rowsPageSql(catalogId: string, q: RowsQuery, rowCount?: number): SQL {
   const table = rowsTable(catalogId);
   const { whereSql } = rowsWhere(q);
   const column = sql.raw(`\`${SORTABLE[q.sort]}\``);
-  const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
   const offset = (q.page - 1) * q.pageSize;
+  const fromEnd = rowCount !== undefined && offset > rowCount / 2 && offset < rowCount;
+  const walk = fromEnd
+    ? {
+        desc: q.dir === 'asc',
+        limit: Math.min(q.pageSize, rowCount - offset),
+        offset: Math.max(0, rowCount - offset - q.pageSize),
+      }
+    : { desc: q.dir === 'desc', limit: q.pageSize, offset };
+  const walkDir = sql.raw(walk.desc ? 'DESC' : 'ASC');
+  const dir = sql.raw(q.dir === 'desc' ? 'DESC' : 'ASC');
   return sql`
     SELECT t.\`row\`, t.line, t.name, t.l, t.b, t.v, t.radius_arcsec AS radiusArcsec,
            t.pos_err_arcsec AS posErrArcsec, t.v_err_kms AS vErrKms, t.line_width_kms AS lineWidthKms,
            t.dist_kpc AS distKpc, t.dist_err_kpc AS distErrKpc
     FROM (SELECT \`row\` FROM ${table} WHERE ${whereSql}
-          ORDER BY ${column} ${dir}, \`row\` ${dir}
-          LIMIT ${q.pageSize} OFFSET ${offset}) page
+          ORDER BY ${column} ${walkDir}, \`row\` ${walkDir}
+          LIMIT ${walk.limit} OFFSET ${walk.offset}) page
     JOIN ${table} t ON t.\`row\` = page.\`row\`
     ORDER BY t.${column} ${dir}, t.\`row\` ${dir}`;
 }
@@ -103,9 +115,8 @@ export async function catalogRowsPage(catalogId: string, q: RowsQuery) {
   const c = await assertReady(catalogId);
   const { whereSql, filtered } = rowsWhere(q);
   return withStatementTimeout('page of rows', async (conn) => {
-    const [rows] = (await conn.execute(rowsPageSql(catalogId, q))) as unknown as [
-      Record<string, unknown>[],
-    ];
+    const sqlOfPage = rowsPageSql(catalogId, q, filtered ? undefined : c.rowCount);
+    const [rows] = (await conn.execute(sqlOfPage)) as unknown as [Record<string, unknown>[]];
     // Unfiltered, the total is the catalog's row count; counting a million rows per page is waste.
     const total = filtered ? await countRows(conn, rowsTable(catalogId), whereSql) : c.rowCount;
     return { rows, total, page: q.page, pageSize: q.pageSize };

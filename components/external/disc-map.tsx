@@ -2,7 +2,7 @@
 
 import { useMemo } from 'react';
 import { MapLegend } from '@/components/plots/map-legend';
-import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS } from '@/components/plots/figure';
 import { fmt } from '@/components/link-runs/format';
 import { ZoomFigure, type Domain, type HoverTarget } from '@/components/ordering/zoom-figure';
 import { ringEdgesKpc } from '@/lib/external/ring-offsets';

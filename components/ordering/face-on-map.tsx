@@ -2,7 +2,7 @@
 
 import { useMemo } from 'react';
 import { MapLegend } from '@/components/plots/map-legend';
-import { PLOT_COLOURS, axisNumber } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS, axisNumber } from '@/components/plots/figure';
 import { fmt } from '@/components/link-runs/format';
 import { armPoints, type ArmSpec } from '@/lib/astro/arms';
 import { toGalactocentric } from '@/lib/astro/galactocentric';

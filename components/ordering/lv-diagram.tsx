@@ -1,13 +1,13 @@
 'use client';
 
 import { useMemo } from 'react';
-import { PLOT_COLOURS, axisNumber } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS, axisNumber } from '@/components/plots/figure';
 import { fmt } from '@/components/link-runs/format';
 import { armLocusLv, type ArmSpec } from '@/lib/astro/arms';
 import { fromGalactocentric } from '@/lib/astro/galactocentric';
 import type { RotationCurve } from '@/lib/astro/rotation-curves';
 import { markerPath, tracerStyle, TRACER_KINDS } from '@/lib/tracers';
-import { ZoomFigure, type Domain, type HoverTarget } from './zoom-figure';
+import { ZoomFigure, type Domain, type HoverTarget, type Scales } from './zoom-figure';
 import type { ResultComplex, ResultSource } from './types';
 import { describeComplex } from './face-on-map';
 
@@ -39,6 +39,42 @@ function locusPieces(arm: ArmSpec, curve: RotationCurve): [number, number][][] {
  * analysis's rotation curve (`armLocusLv`), and the complexes' sources by class at their own
  * longitude and their complex's LSR velocity (radio convention). Longitude grows to the left.
  */
+/**
+ * An arm's name beside its locus at the middle of the part of the locus in view (kept 10 % of
+ * the view away from its edges), and written towards the plot's centre, so the label is never
+ * cut by the plot frame however the view is zoomed or panned.
+ */
+function LocusLabel({
+  name,
+  piece,
+  scales,
+}: {
+  name: string;
+  piece: [number, number][];
+  scales: Scales;
+}) {
+  const { view, px, py } = scales;
+  const mx = 0.1 * (view.x1 - view.x0);
+  const my = 0.1 * (view.y1 - view.y0);
+  const inView = piece.filter(
+    ([x, y]) => x > view.x0 + mx && x < view.x1 - mx && y > view.y0 + my && y < view.y1 - my,
+  );
+  if (inView.length === 0) return null;
+  const [x, y] = inView[Math.floor(inView.length / 2)];
+  const towardsLeft = px(x) > (px(view.x0) + px(view.x1)) / 2;
+  return (
+    <text
+      x={px(x) + (towardsLeft ? -4 : 4)}
+      y={py(y) - 4}
+      textAnchor={towardsLeft ? 'end' : 'start'}
+      fill={PLOT_COLOURS.accent}
+      fontSize={10}
+    >
+      {name}
+    </text>
+  );
+}
+
 export function LvDiagram({
   arms,
   curve,
@@ -132,31 +168,28 @@ export function LvDiagram({
         </g>
       )}
     >
-      {({ px, py }) => (
+      {(scales) => (
         <>
-          <line x1={px(180)} x2={px(-180)} y1={py(0)} y2={py(0)} stroke={PLOT_COLOURS.rule} />
+          <line
+            x1={scales.px(180)}
+            x2={scales.px(-180)}
+            y1={scales.py(0)}
+            y2={scales.py(0)}
+            stroke={PLOT_COLOURS.rule}
+          />
           {loci.map((l) =>
             l.pieces.map((piece, j) => (
               <g key={`${l.name}${j}`}>
                 <polyline
                   points={piece
-                    .map(([x, y]) => `${px(x).toFixed(1)},${py(y).toFixed(1)}`)
+                    .map(([x, y]) => `${scales.px(x).toFixed(1)},${scales.py(y).toFixed(1)}`)
                     .join(' ')}
                   fill="none"
                   stroke={PLOT_COLOURS.accent}
                   strokeWidth={1.6}
                   strokeOpacity={0.7}
                 />
-                {j === 0 && (
-                  <text
-                    x={px(piece[0][0]) + 3}
-                    y={py(piece[0][1]) - 4}
-                    fill={PLOT_COLOURS.accent}
-                    fontSize={10}
-                  >
-                    {l.name}
-                  </text>
-                )}
+                {j === 0 && <LocusLabel name={l.name} piece={piece} scales={scales} />}
               </g>
             )),
           )}
@@ -165,7 +198,7 @@ export function LvDiagram({
             return (
               <path
                 key={i}
-                d={markerPath(t.shape, px(p.l), py(p.v), 3)}
+                d={markerPath(t.shape, scales.px(p.l), scales.py(p.v), 3)}
                 fill={t.colour}
                 fillOpacity={p.used ? 0.85 : 0.25}
               />

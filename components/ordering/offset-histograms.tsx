@@ -2,7 +2,7 @@
 
 import { useMemo } from 'react';
 import { niceTicks } from '@/components/plots/scatter-canvas';
-import { PLOT_COLOURS, axisNumber } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS, axisNumber } from '@/components/plots/figure';
 import { fmt } from '@/components/link-runs/format';
 import { markerPath, tracerStyle, TRACER_KINDS, type TracerKind } from '@/lib/tracers';
 import { ZoomFigure, type Domain, type HoverTarget } from './zoom-figure';

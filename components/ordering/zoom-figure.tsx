@@ -2,9 +2,14 @@
 
 import { useEffect, useId, useRef, useState } from 'react';
 import { niceTicks } from '@/components/plots/scatter-canvas';
-import { PLOT_COLOURS, PLOT_FONT, axisNumber } from '@/components/link-runs/svg-figure';
+import {
+  FigureDownloads,
+  PLOT_COLOURS,
+  PLOT_FONT,
+  axisNumber,
+  saveSvgFigure,
+} from '@/components/plots/figure';
 import { Button } from '@/components/ui/button';
-import { saveSvg, savePng } from './download';
 
 /** A rectangle of data space: x from x0 to x1, y from y0 to y1 (x0 < x1, y0 < y1). */
 export type Domain = { x0: number; x1: number; y0: number; y1: number };
@@ -84,7 +89,6 @@ export function ZoomFigure({
   const [hover, setHover] = useState<{ x: number; y: number; target: HoverTarget | null } | null>(
     null,
   );
-  const [saveError, setSaveError] = useState<string | null>(null);
   const drag = useRef<{ sx: number; sy: number; view: Domain } | null>(null);
 
   const w = width - margin.left - margin.right;
@@ -173,20 +177,10 @@ export function ZoomFigure({
   const xt = niceTicks(view.x0, view.x1, Math.max(3, Math.round(w / 90)));
   const yt = niceTicks(view.y0, view.y1, Math.max(3, Math.round(h / 60)));
   const zoomed = view !== domain;
-  const save = (kind: 'svg' | 'png') => {
-    const svg = svgRef.current;
-    if (!svg) return;
-    setSaveError(null);
-    if (kind === 'svg') saveSvg(svg, `${fileStem}.svg`);
-    else
-      savePng(svg, `${fileStem}.png`).catch((e: Error) =>
-        setSaveError(`PNG not saved: ${e.message}.`),
-      );
-  };
   const centre = () => ({ x: (view.x0 + view.x1) / 2, y: (view.y0 + view.y1) / 2 });
 
   return (
-    <figure className="space-y-1.5" data-testid={testId}>
+    <figure className="min-w-0 space-y-1.5" data-testid={testId}>
       <figcaption className="flex flex-wrap items-center justify-between gap-2">
         <span className="text-sm font-medium">{title}</span>
         <span className="flex flex-wrap items-center gap-1">
@@ -220,24 +214,7 @@ export function ZoomFigure({
           >
             Reset
           </Button>
-          <Button
-            type="button"
-            variant="quiet"
-            className="px-2 py-0.5 text-xs"
-            aria-label={`Download SVG of ${title}`}
-            onClick={() => save('svg')}
-          >
-            SVG
-          </Button>
-          <Button
-            type="button"
-            variant="quiet"
-            className="px-2 py-0.5 text-xs"
-            aria-label={`Download PNG of ${title}`}
-            onClick={() => save('png')}
-          >
-            PNG
-          </Button>
+          <FigureDownloads title={title} save={(f) => saveSvgFigure(svgRef.current, fileStem, f)} />
         </span>
       </figcaption>
       <svg
@@ -247,6 +224,7 @@ export function ZoomFigure({
         viewBox={`0 0 ${width} ${height}`}
         width={width}
         height={height}
+        data-figure=""
         className="h-auto max-w-full cursor-grab touch-none select-none rounded border border-rule active:cursor-grabbing"
         {...PLOT_FONT}
         onPointerDown={(e) => {
@@ -372,7 +350,6 @@ export function ZoomFigure({
             : `${xLabel} ${formatX(hover.x, xt.decimals + 1)}, ${yLabel} ${axisNumber(hover.y, yt.decimals + 1)}`
           : 'Point at the plot for a readout; wheel or +/− to zoom, drag to pan, double-click to reset.'}
       </p>
-      {saveError && <p className="text-xs text-danger">{saveError}</p>}
       {caption && <div className="text-xs text-ink-soft">{caption}</div>}
     </figure>
   );

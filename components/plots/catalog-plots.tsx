@@ -1,6 +1,7 @@
 'use client';
 
-import { useMemo } from 'react';
+import { useParams } from 'next/navigation';
+import { useCallback, useMemo } from 'react';
 import { tracerStyle } from '@/lib/tracers';
 import { ScatterCanvas, type AxisSpec } from './scatter-canvas';
 
@@ -70,6 +71,28 @@ export function CatalogPlots({
   const bDeg = useMemo(() => column(points, 1), [points]);
   const vKms = useMemo(() => column(points, 2), [points]);
   const t = tracerStyle(kind);
+  const { catalogId } = useParams<{ catalogId?: string }>();
+  // Point i is row i + 1 of the catalog: the points file is written in row order on ingest.
+  const describe = useCallback(
+    (i: number) => {
+      const v = points[3 * i + 2];
+      return `${name} · row ${i + 1} · l = ${points[3 * i].toFixed(4)}°, b = ${points[3 * i + 1].toFixed(4)}°, v = ${v === v ? `${v.toFixed(2)} km/s` : '—'}`;
+    },
+    [points, name],
+  );
+  const lookUp = useCallback(
+    async (i: number) => {
+      if (!catalogId) return describe(i);
+      const res = await fetch(
+        `/api/catalogs/${catalogId}/rows?sort=row&dir=asc&pageSize=1&page=${i + 1}`,
+      );
+      if (!res.ok) return describe(i);
+      const { rows } = (await res.json()) as { rows: { name?: string | null }[] };
+      const rowName = rows[0]?.name;
+      return rowName ? `${rowName} — ${describe(i)}` : describe(i);
+    },
+    [catalogId, describe],
+  );
   const plots = [
     {
       ys: bDeg,
@@ -104,6 +127,8 @@ export function CatalogPlots({
           fileStem={`${name}-${p.stem}`}
           aspect={p.aspect}
           testId={p.testId}
+          describe={describe}
+          lookUp={lookUp}
         />
       ))}
     </div>

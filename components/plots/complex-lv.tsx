@@ -1,7 +1,7 @@
 'use client';
 
 import { niceTicks } from '@/components/plots/scatter-canvas';
-import { PLOT_COLOURS, SvgFigure, axisNumber } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS, SvgFigure, axisNumber } from '@/components/plots/figure';
 import type { Complex, Member } from '@/components/link-runs/types';
 import { markerPath, tracerStyle } from '@/lib/tracers';
 
@@ -113,7 +113,7 @@ export function ComplexLv({
             key={`${m.catalogId}:${m.row}`}
             d={markerPath(t.shape, px(m.l), py(m.v), 5)}
             fill={t.colour}
-            stroke="#ffffff"
+            stroke={PLOT_COLOURS.background}
             strokeWidth={0.6}
           >
             <title>{`${m.name ?? `row ${m.row}`}: l = ${axisNumber(m.l, 4)}°, v = ${axisNumber(m.v, 2)} km/s`}</title>

@@ -1,7 +1,7 @@
 'use client';
 
 import { niceTicks } from '@/components/plots/scatter-canvas';
-import { PLOT_COLOURS, SvgFigure, axisNumber } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS, SvgFigure, axisNumber } from '@/components/plots/figure';
 import type { Link, Member } from '@/components/link-runs/types';
 import { markerPath, tracerStyle } from '@/lib/tracers';
 
@@ -158,7 +158,7 @@ export function ComplexSky({
               key={`m${i}`}
               d={markerPath(t.shape, px(o.x), py(o.y), 5)}
               fill={t.colour}
-              stroke="#ffffff"
+              stroke={PLOT_COLOURS.background}
               strokeWidth={0.6}
             >
               <title>{`${members[i].name ?? `row ${members[i].row}`} (${members[i].catalogName})`}</title>

@@ -3,7 +3,7 @@
  * corotation (dashed), the fitted model curve, and per ring its Δφ with the 95 % interval,
  * filled when the pattern fit used the ring and hollow when it left it out.
  */
-import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS } from '@/components/plots/figure';
 
 /** One ring as drawn: radius (kpc), Δφ (deg) and its interval. */
 export type DphiRingMark = {

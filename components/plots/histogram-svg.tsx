@@ -1,7 +1,7 @@
 'use client';
 
 import { niceTicks } from '@/components/plots/scatter-canvas';
-import { PLOT_COLOURS, SvgFigure, axisNumber } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS, SvgFigure, axisNumber } from '@/components/plots/figure';
 
 const W = 360;
 const H = 210;

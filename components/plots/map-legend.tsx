@@ -3,7 +3,7 @@
  * its colour and shape, then the map's own rows (glyphs and lines), ending with the arm ridge.
  */
 import type { ReactNode } from 'react';
-import { PLOT_COLOURS } from '@/components/link-runs/svg-figure';
+import { PLOT_COLOURS } from '@/components/plots/figure';
 import { markerPath, tracerStyle } from '@/lib/tracers';
 import type { TracerKind } from '@/lib/ordering/types';
 

@@ -3,6 +3,10 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { markerPath, type MarkerShape } from '@/lib/tracers';
 import { Button } from '@/components/ui/button';
+import { saveBlob, pngFileName } from './download';
+import { FigureDownloads, type FigureFormat } from './figure';
+import { NearestPicker } from './nearest';
+import { rgbChannels, useThemeColours, type ThemeColours } from './theme-colours';
 
 /** One axis of a scatter plot. */
 export interface AxisSpec {
@@ -39,13 +43,15 @@ type Props = {
   /** Height over width of the plot; the height is kept between 260 and 620 CSS px. */
   aspect?: number;
   testId?: string;
+  /** One line about point `i` (its row: catalog, row number, coordinates), shown on hover. */
+  describe?: (i: number) => string;
+  /** More about point `i` (its row as stored, with its name), fetched when it is clicked. */
+  lookUp?: (i: number) => Promise<string>;
 };
 
 const MARGIN = { left: 64, right: 16, top: 14, bottom: 46 };
-const BACKGROUND = '#fffdf8';
-const INK = '#1d2327';
-const INK_SOFT = '#4a545b';
-const RULE = '#bdb4a0';
+/** A source this near the pointer (CSS px) is picked by hover and click. */
+const PICK_PX = 12;
 /** Up to this many points in view are drawn as marker shapes; more as density pixels. */
 export const MARKER_LIMIT = 5_000;
 /** Name of the performance measure each redraw records. */
@@ -151,11 +157,6 @@ function binPoints(xs: Float32Array, ys: Float32Array, f: Frame, w: number, h: n
   return { counts, max, shown };
 }
 
-function rgb(hex: string): [number, number, number] {
-  const n = parseInt(hex.slice(1), 16);
-  return [(n >> 16) & 255, (n >> 8) & 255, n & 255];
-}
-
 /**
  * Paints the binned points into an ImageData of the plot area at device resolution: each
  * occupied cell is one CSS pixel in the point colour, darker where more points pile up (opacity
@@ -168,13 +169,14 @@ function paintPoints(
   h: number,
   dpr: number,
   colour: string,
+  background: string,
 ): ImageData {
   const dw = Math.round(w * dpr);
   const dh = Math.round(h * dpr);
   const img = ctx.createImageData(dw, dh);
   const px = new Uint32Array(img.data.buffer);
-  const [r, g, b] = rgb(colour);
-  const [br, bg, bb] = rgb(BACKGROUND);
+  const [r, g, b] = rgbChannels(colour);
+  const [br, bg, bb] = rgbChannels(background);
   // Little-endian RGBA packed as one 32-bit word; a 256-step table of blends by opacity.
   const lut = new Uint32Array(256);
   for (let k = 0; k < 256; k++) {
@@ -251,7 +253,9 @@ function drawAxes(
   axes: Axes,
   p: Pick<Props, 'x' | 'y' | 'colour' | 'shape' | 'legend'>,
   legendCount: string,
+  colours: ThemeColours,
 ) {
+  const { ink: INK, inkSoft: INK_SOFT, rule: RULE, background } = colours;
   const L = MARGIN.left;
   const T = MARGIN.top;
   ctx.strokeStyle = RULE;
@@ -291,8 +295,10 @@ function drawAxes(
   const text = `${p.legend} · ${legendCount}`;
   const tw = ctx.measureText(text).width;
   const bx = L + f.w - tw - 34;
-  ctx.fillStyle = 'rgba(255,253,248,0.9)';
+  ctx.globalAlpha = 0.9;
+  ctx.fillStyle = background;
   ctx.fillRect(bx, T + 6, tw + 28, 20);
+  ctx.globalAlpha = 1;
   ctx.fillStyle = p.colour;
   ctx.fill(new Path2D(markerPath(p.shape, bx + 11, T + 16, 5)));
   ctx.fillStyle = INK;
@@ -311,7 +317,14 @@ const escapeXml = (s: string) =>
  * (k = ⌈n / limit⌉, a deterministic thinning that keeps the density pattern) and the legend
  * says so; the PNG download keeps every point.
  */
-function buildSvg(p: Props, view: View, width: number, height: number): string {
+function buildSvg(
+  p: Props,
+  view: View,
+  width: number,
+  height: number,
+  colours: ThemeColours,
+): string {
+  const { background: BACKGROUND, ink: INK, inkSoft: INK_SOFT, rule: RULE } = colours;
   const f = frame(view, width, height, p.x, p.y);
   const axes = ticksFor(view, f);
   const inView: number[] = [];
@@ -373,15 +386,56 @@ function buildSvg(p: Props, view: View, width: number, height: number): string {
   return out.join('\n');
 }
 
-function download(blob: Blob, fileName: string) {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  document.body.append(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+/**
+ * Draws the whole plot into `canvas` at `dpr` device pixels per CSS pixel: the points (binned or
+ * as markers), then axes and legend. The screen and the PNG downloads (at 1×, 2×, 4×) both come
+ * from here. Returns the number of points in view.
+ */
+function drawPlot(
+  canvas: HTMLCanvasElement,
+  p: Pick<Props, 'xs' | 'ys' | 'x' | 'y' | 'colour' | 'shape' | 'legend'>,
+  view: View,
+  width: number,
+  height: number,
+  dpr: number,
+  colours: ThemeColours,
+): number {
+  canvas.width = Math.round(width * dpr);
+  canvas.height = Math.round(height * dpr);
+  const ctx = canvas.getContext('2d');
+  if (!ctx) throw new Error('this browser has no 2-D canvas');
+  const fr = frame(view, width, height, p.x, p.y);
+  const w = Math.round(fr.w);
+  const h = Math.round(fr.h);
+  ctx.setTransform(1, 0, 0, 1, 0, 0);
+  ctx.fillStyle = colours.background;
+  ctx.fillRect(0, 0, canvas.width, canvas.height);
+  const binned = binPoints(p.xs, p.ys, fr, w, h);
+  if (binned.shown > MARKER_LIMIT) {
+    const img = paintPoints(ctx, binned, w, h, dpr, p.colour, colours.background);
+    ctx.putImageData(img, Math.round(MARGIN.left * dpr), Math.round(MARGIN.top * dpr));
+  }
+  ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
+  if (binned.shown <= MARKER_LIMIT) drawMarkers(ctx, p.xs, p.ys, fr, p.colour, p.shape);
+  drawAxes(
+    ctx,
+    fr,
+    ticksFor(view, fr),
+    p,
+    `${binned.shown.toLocaleString('en-US')} points`,
+    colours,
+  );
+  return binned.shown;
+}
+
+/**
+ * Runs one redraw and records it as the {@link DRAW_MEASURE} performance measure, visible in the
+ * browser's performance panel; `npm run bench:plots` reads it.
+ */
+function measuredDraw(testId: string | undefined, draw: () => number) {
+  const started = performance.now();
+  const points = draw();
+  performance.measure(DRAW_MEASURE, { start: started, detail: { points, testId } });
 }
 
 /**
@@ -393,11 +447,15 @@ function download(blob: Blob, fileName: string) {
  */
 export function ScatterCanvas(p: Props) {
   const { xs, ys, x, y, colour, shape, legend, title, fileStem, aspect = 0.5, testId } = p;
+  const { describe, lookUp } = p;
   const boxRef = useRef<HTMLDivElement>(null);
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const [width, setWidth] = useState(0);
   const [zoom, setZoom] = useState<View | null>(null);
-  const [hover, setHover] = useState<{ x: number; y: number } | null>(null);
+  const [hover, setHover] = useState<{ x: number; y: number; point: number } | null>(null);
+  const [picked, setPicked] = useState<{ point: number; text: string } | null>(null);
+  const colours = useThemeColours(boxRef);
+  const picker = useMemo(() => new NearestPicker(xs, ys), [xs, ys]);
   const [drag, setDrag] = useState<{ x0: number; y0: number; x1: number; y1: number } | null>(null);
   const full = useMemo(() => dataView(xs, ys), [xs, ys]);
   const view = zoom ?? full;
@@ -415,35 +473,10 @@ export function ScatterCanvas(p: Props) {
   useEffect(() => {
     const canvas = canvasRef.current;
     if (!canvas || !view || width === 0) return;
+    const plot = { xs, ys, x, y, colour, shape, legend };
     const dpr = window.devicePixelRatio || 1;
-    canvas.width = Math.round(width * dpr);
-    canvas.height = Math.round(height * dpr);
-    const ctx = canvas.getContext('2d');
-    if (!ctx) return;
-    const started = performance.now();
-    const fr = frame(view, width, height, x, y);
-    const w = Math.round(fr.w);
-    const h = Math.round(fr.h);
-    ctx.setTransform(1, 0, 0, 1, 0, 0);
-    ctx.fillStyle = BACKGROUND;
-    ctx.fillRect(0, 0, canvas.width, canvas.height);
-    const binned = binPoints(xs, ys, fr, w, h);
-    if (binned.shown > MARKER_LIMIT) {
-      const img = paintPoints(ctx, binned, w, h, dpr, colour);
-      ctx.putImageData(img, Math.round(MARGIN.left * dpr), Math.round(MARGIN.top * dpr));
-    }
-    ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
-    if (binned.shown <= MARKER_LIMIT) drawMarkers(ctx, xs, ys, fr, colour, shape);
-    drawAxes(
-      ctx,
-      fr,
-      ticksFor(view, fr),
-      { x, y, colour, shape, legend },
-      `${binned.shown.toLocaleString('en-US')} points`,
-    );
-    // Visible in the browser's performance panel; `npm run bench:plots` reads it.
-    performance.measure(DRAW_MEASURE, { start: started, detail: { points: binned.shown, testId } });
-  }, [xs, ys, view, width, height, x, y, colour, shape, legend, testId]);
+    measuredDraw(testId, () => drawPlot(canvas, plot, view, width, height, dpr, colours));
+  }, [xs, ys, view, width, height, x, y, colour, shape, legend, testId, colours]);
 
   const local = (e: React.PointerEvent) => {
     const r = e.currentTarget.getBoundingClientRect();
@@ -453,6 +486,37 @@ export function ScatterCanvas(p: Props) {
     !!f && q.x >= 0 && q.x <= f.w && q.y >= 0 && q.y <= f.h;
   const readoutDecimals = (span: number, pixels: number) =>
     Math.max(0, Math.ceil(-Math.log10(Math.abs(span) / pixels)));
+
+  const save = async (format: FigureFormat) => {
+    if (!view) return;
+    if (format === 'svg') {
+      const text = buildSvg(p, view, width, height, colours);
+      saveBlob(new Blob([text], { type: 'image/svg+xml' }), `${fileStem}.svg`);
+      return;
+    }
+    const canvas = document.createElement('canvas');
+    drawPlot(canvas, p, view, width, height, format, colours);
+    const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
+    if (!blob) throw new Error('the canvas gave no PNG');
+    saveBlob(blob, pngFileName(fileStem, format));
+  };
+
+  const pickAt = (q: { x: number; y: number }) =>
+    f && inside(q) ? picker.nearest(f, q.x, q.y, PICK_PX) : -1;
+  const describeAt = (i: number) =>
+    describe?.(i) ??
+    `${legend} · point ${i + 1} · ${x.symbol} = ${shown(x, xs[i], 3)} ${x.unit}, ${y.symbol} = ${shown(y, ys[i], 2)} ${y.unit}`;
+  const pick = (point: number) => {
+    if (point < 0) return setPicked(null);
+    setPicked({ point, text: describeAt(point) });
+    lookUp?.(point).then(
+      (text) => setPicked((c) => (c?.point === point ? { point, text } : c)),
+      () => undefined,
+    );
+  };
+  const ring = (i: number) =>
+    f && i >= 0 ? { left: MARGIN.left + f.px(xs[i]), top: MARGIN.top + f.py(ys[i]) } : null;
+  const marked = ring(hover && hover.point >= 0 ? hover.point : (picked?.point ?? -1));
 
   return (
     <figure className="space-y-2">
@@ -476,7 +540,7 @@ export function ScatterCanvas(p: Props) {
           }}
           onPointerMove={(e) => {
             const q = local(e);
-            setHover(inside(q) && f ? { x: f.dx(q.x), y: f.dy(q.y) } : null);
+            setHover(inside(q) && f ? { x: f.dx(q.x), y: f.dy(q.y), point: pickAt(q) } : null);
             if (drag)
               setDrag({
                 ...drag,
@@ -486,7 +550,10 @@ export function ScatterCanvas(p: Props) {
           }}
           onPointerLeave={() => setHover(null)}
           onPointerUp={() => {
-            if (drag && f && Math.abs(drag.x1 - drag.x0) > 4 && Math.abs(drag.y1 - drag.y0) > 4) {
+            const dragged =
+              !!drag && Math.abs(drag.x1 - drag.x0) > 4 && Math.abs(drag.y1 - drag.y0) > 4;
+            if (drag && !dragged) pick(pickAt({ x: drag.x0, y: drag.y0 }));
+            if (drag && f && dragged) {
               const xa = f.dx(drag.x0);
               const xb = f.dx(drag.x1);
               const ya = f.dy(drag.y0);
@@ -511,6 +578,14 @@ export function ScatterCanvas(p: Props) {
             }}
           />
         )}
+        {marked && (
+          <div
+            aria-hidden
+            className="pointer-events-none absolute size-4 -translate-x-1/2 -translate-y-1/2 rounded-full border-2 border-ink"
+            style={marked}
+            data-testid={testId && `${testId}-marked`}
+          />
+        )}
         {!view && (
           <p className="absolute inset-0 flex items-center justify-center text-sm text-ink-soft">
             No points with both values to plot.
@@ -531,39 +606,27 @@ export function ScatterCanvas(p: Props) {
               )} ${y.unit}`
             : 'Point at the plot to read coordinates; drag a box to zoom.'}
         </span>
-        <span className="ml-auto flex gap-2">
+        <span className="ml-auto flex flex-wrap items-center gap-2">
           <Button
             variant="quiet"
-            className="px-2 py-1 text-xs"
+            className="px-2 py-0.5 text-xs"
             disabled={!zoom}
             onClick={() => setZoom(null)}
           >
             Reset zoom
           </Button>
-          <Button
-            variant="quiet"
-            className="px-2 py-1 text-xs"
-            disabled={!view}
-            onClick={() =>
-              canvasRef.current?.toBlob((b) => b && download(b, `${fileStem}.png`), 'image/png')
-            }
-          >
-            Download PNG
-          </Button>
-          <Button
-            variant="quiet"
-            className="px-2 py-1 text-xs"
-            disabled={!view}
-            onClick={() =>
-              view &&
-              download(
-                new Blob([buildSvg(p, view, width, height)], { type: 'image/svg+xml' }),
-                `${fileStem}.svg`,
-              )
-            }
-          >
-            Download SVG
-          </Button>
+          <FigureDownloads title={title} save={save} disabled={!view} />
+        </span>
+        <span
+          className="num w-full text-left text-ink"
+          aria-live="polite"
+          data-testid={testId && `${testId}-source`}
+        >
+          {hover && hover.point >= 0
+            ? describeAt(hover.point)
+            : picked
+              ? picked.text
+              : 'The source nearest the pointer is named here; click it to keep it.'}
         </span>
       </figcaption>
     </figure>

@@ -3,16 +3,15 @@
 import { useMemo, useRef } from 'react';
 import { vLsrAtKms } from '@/lib/astro/kinematic-distance';
 import { toolCurve, type ToolCurveName } from '@/lib/calculators';
-import { Button } from '@/components/ui/button';
-import { downloadText } from '@/components/forms/calculator-results';
+import { FigureDownloads, PLOT_COLOURS, saveSvgFigure } from './figure';
 
-/** Colours written into the SVG itself, so that a downloaded file looks like the screen (globals.css). */
+/** Theme colours (a saved SVG gets them written out); the mark is the HII tracer's orange. */
 const COLOUR = {
-  paper: '#fbfaf6',
-  ink: '#1d2327',
-  inkSoft: '#4a545b',
-  rule: '#d9d2c1',
-  accent: '#16505c',
+  paper: PLOT_COLOURS.background,
+  ink: PLOT_COLOURS.ink,
+  inkSoft: PLOT_COLOURS.inkSoft,
+  rule: PLOT_COLOURS.faint,
+  accent: PLOT_COLOURS.accent,
   mark: '#d55e00',
 };
 
@@ -120,9 +119,10 @@ export function VelocityDistancePlot({
   const title = `l = ${lDeg.toFixed(3)}°, b = ${bDeg.toFixed(3)}°, v_LSR = ${vKms.toFixed(1)} km/s — ${curve.label}, R0 = ${curve.R0} kpc, Θ0 = ${curve.theta0} km/s`;
 
   return (
-    <figure className="space-y-2">
+    <figure className="min-w-0 space-y-2">
       <svg
         ref={svgRef}
+        data-figure=""
         xmlns="http://www.w3.org/2000/svg"
         viewBox={`0 0 ${W} ${H}`}
         role="img"
@@ -300,21 +300,16 @@ export function VelocityDistancePlot({
           Circular rotation on the chosen curve; ○ near and □ far (or single) roots on the dashed
           velocity line, ◆ the tangent point (terminal velocity).
         </span>
-        <Button
-          type="button"
-          variant="quiet"
-          onClick={() => {
-            if (!svgRef.current) return;
-            const svg = new XMLSerializer().serializeToString(svgRef.current);
-            downloadText(
-              `velocity-distance_l${lDeg.toFixed(3)}_b${bDeg.toFixed(3)}.svg`,
-              `<?xml version="1.0" encoding="UTF-8"?>\n${svg}`,
-              'image/svg+xml',
-            );
-          }}
-        >
-          Download SVG
-        </Button>
+        <FigureDownloads
+          title="velocity against distance"
+          save={(format) =>
+            saveSvgFigure(
+              svgRef.current,
+              `velocity-distance_l${lDeg.toFixed(3)}_b${bDeg.toFixed(3)}`,
+              format,
+            )
+          }
+        />
       </figcaption>
     </figure>
   );

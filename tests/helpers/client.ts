@@ -6,14 +6,19 @@ export const BASE_URL = process.env.LANEWISE_BASE_URL ?? 'http://127.0.0.1:3100'
 
 /**
  * A tiny HTTP client with a cookie jar, standing in for a browser or a script. Requests carry
- * the Origin of the app, as a browser on our pages would.
+ * the Origin of the app, as a browser on our pages would; set `origin` to null to send none
+ * (a script, or a browser that omits it).
  */
 export class Client {
   private cookies = new Map<string, string>();
   bearer?: string;
+  origin: string | null = BASE_URL;
 
   async request(method: string, url: string, body?: unknown, headers: Record<string, string> = {}) {
-    const h: Record<string, string> = { origin: BASE_URL, ...headers };
+    const h: Record<string, string> = {
+      ...(this.origin ? { origin: this.origin } : {}),
+      ...headers,
+    };
     if (this.cookies.size) h.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
     if (this.bearer) h.authorization = `Bearer ${this.bearer}`;
     let payload: BodyInit | undefined;

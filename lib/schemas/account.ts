@@ -3,6 +3,7 @@
  * route handlers, the services and the browser's forms.
  */
 import { z } from 'zod';
+import { plainText } from './text';
 
 export const emailSchema = z
   .string()
@@ -18,7 +19,7 @@ export const passwordSchema = z
 
 export const signUpSchema = z.object({
   email: emailSchema,
-  name: z.string().trim().min(1, 'Enter your name.').max(120),
+  name: plainText({ max: 120 }).min(1, 'Enter your name.'),
   password: passwordSchema,
 });
 

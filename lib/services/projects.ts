@@ -6,19 +6,28 @@ import { newId } from '@/lib/auth/secrets';
 import type { ProjectRole } from '@/lib/auth/roles';
 import { notFound } from '@/lib/http/errors';
 import { projectTargetSchema } from '@/lib/schemas/analyses';
+import { plainText } from '@/lib/schemas/text';
 import { PROJECT_DELETE_JOB } from './project-purge';
 
-export const projectNameSchema = z.string().trim().min(1, 'Give the project a name.').max(200);
+export const projectNameSchema = plainText({ max: 200 }).min(1, 'Give the project a name.');
 export const createProjectSchema = z.object({
   name: projectNameSchema,
-  description: z.string().trim().max(2000).optional(),
+  description: plainText({ max: 2000, multiline: true }).optional(),
 });
+/** The most JSON characters a project's settings may hold. */
+export const SETTINGS_LIMIT_CHARS = 64 * 1024;
 export const updateProjectSchema = z
   .object({
     name: projectNameSchema.optional(),
-    description: z.string().trim().max(2000).nullable().optional(),
+    description: plainText({ max: 2000, multiline: true }).nullable().optional(),
     /** Free-form settings of the pages; `target` (Milky Way or an external galaxy) is checked. */
-    settings: z.looseObject({ target: projectTargetSchema.optional() }).optional(),
+    settings: z
+      .looseObject({ target: projectTargetSchema.optional() })
+      // Settings travel with every project list; a page's settings are a few KB.
+      .refine((s) => JSON.stringify(s).length <= SETTINGS_LIMIT_CHARS, {
+        message: `Settings may hold at most ${SETTINGS_LIMIT_CHARS / 1024} KB of JSON.`,
+      })
+      .optional(),
   })
   .strict();
 

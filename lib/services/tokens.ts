@@ -4,10 +4,11 @@ import { db } from '@/db/client';
 import { apiTokens, users } from '@/db/schema';
 import { newId, randomSecret, sha256 } from '@/lib/auth/secrets';
 import { notFound } from '@/lib/http/errors';
+import { plainText } from '@/lib/schemas/text';
 import type { PublicUser } from './users';
 
 export const createTokenSchema = z.object({
-  name: z.string().trim().min(1, 'Name the token.').max(120),
+  name: plainText({ max: 120 }).min(1, 'Name the token.'),
 });
 
 const TOKEN_PREFIX = 'lw_';

@@ -15,13 +15,13 @@ export const GET = route<P>(async (req, { projectId }) => {
 });
 
 export const PATCH = route<P>(async (req, { projectId }) => {
-  const input = updateProjectSchema.parse(await jsonBody(req));
   const { user, role } = await requireProjectRole(
     projectId,
     'owner',
     req,
     'change project settings',
   );
+  const input = updateProjectSchema.parse(await jsonBody(req));
   return json({ project: await updateProject(projectId, user.id, input, role) });
 });
 

@@ -9,8 +9,8 @@ const querySchema = z.object({
 });
 
 export const GET = route<{ analysisId: string }>(async (req, { analysisId }) => {
-  const { table } = querySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   await requireProjectRole(await analysisProject(analysisId), 'viewer', req);
+  const { table } = querySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   return new Response(await analysisCsv(analysisId, table), {
     headers: {
       'content-type': 'text/csv; charset=utf-8',

@@ -4,7 +4,7 @@ import { catalogProject } from '@/lib/services/catalogs';
 import { catalogRowsPage, rowsQuerySchema } from '@/lib/services/catalog-rows';
 
 export const GET = route<{ catalogId: string }>(async (req, { catalogId }) => {
-  const query = rowsQuerySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   await requireProjectRole(await catalogProject(catalogId), 'viewer', req);
+  const query = rowsQuerySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   return json(await catalogRowsPage(catalogId, query));
 });

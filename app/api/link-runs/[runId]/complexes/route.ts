@@ -4,7 +4,7 @@ import { complexesPage, complexesQuerySchema } from '@/lib/services/complexes';
 import { runProject } from '@/lib/services/link-runs';
 
 export const GET = route<{ runId: string }>(async (req, { runId }) => {
-  const query = complexesQuerySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   await requireProjectRole(await runProject(runId), 'viewer', req);
+  const query = complexesQuerySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   return json(await complexesPage(runId, query));
 });

@@ -10,7 +10,7 @@ export const GET = route<P>(async (req, { projectId }) => {
 });
 
 export const POST = route<P>(async (req, { projectId }) => {
-  const input = inviteSchema.parse(await jsonBody(req));
   const { user } = await requireProjectRole(projectId, 'owner', req, 'invite members');
+  const input = inviteSchema.parse(await jsonBody(req));
   return json(await invite(projectId, user.id, input), 201);
 });

@@ -3,7 +3,7 @@ import { json, jsonBody, route } from '@/lib/http/handler';
 import { estimateLinkRun, linkRunSchema } from '@/lib/services/link-runs';
 
 export const POST = route<{ projectId: string }>(async (req, { projectId }) => {
-  const params = linkRunSchema.parse(await jsonBody(req));
   await requireProjectRole(projectId, 'viewer', req);
+  const params = linkRunSchema.parse(await jsonBody(req));
   return json(await estimateLinkRun(projectId, params));
 });

@@ -5,8 +5,8 @@ import { changeRole, changeRoleSchema, removeMember } from '@/lib/services/membe
 type P = { projectId: string; userId: string };
 
 export const PATCH = route<P>(async (req, { projectId, userId }) => {
-  const { role } = changeRoleSchema.parse(await jsonBody(req));
   const { user } = await requireProjectRole(projectId, 'owner', req, 'change roles');
+  const { role } = changeRoleSchema.parse(await jsonBody(req));
   await changeRole(projectId, user.id, userId, role);
   return json({ member: { userId, role } });
 });

@@ -7,14 +7,14 @@ import { runProject } from '@/lib/services/link-runs';
 /** An editor's distance for a complex (null clears it); later analyses use it. */
 export const PUT = route<{ runId: string; complexId: string }>(
   async (req, { runId, complexId }) => {
-    const id = complexIdSchema.parse(complexId);
-    const input = distanceOverrideSchema.parse(await jsonBody(req));
     const { user } = await requireProjectRole(
       await runProject(runId),
       'editor',
       req,
       'override distances',
     );
+    const id = complexIdSchema.parse(complexId);
+    const input = distanceOverrideSchema.parse(await jsonBody(req));
     return json(await setDistanceOverride(runId, id, user.id, input));
   },
 );

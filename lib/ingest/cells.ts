@@ -44,3 +44,19 @@ export function isSexagesimalCell(text: string): boolean {
 export function isNumericLikeCell(text: string): boolean {
   return Number.isFinite(parseNumberCell(text)) || isSexagesimalCell(text);
 }
+
+/** A number written with a decimal comma: `30,1`, `-0,25`, `1,5e3` (one comma, digits both sides). */
+const DECIMAL_COMMA = /^\s*[+-]?\d+,\d+(?:[eE][+-]?\d+)?\s*$/;
+
+/** True when a cell is a number written with a decimal comma (see {@link parseDecimalCommaCell}). */
+export function isDecimalCommaCell(text: string): boolean {
+  return DECIMAL_COMMA.test(text);
+}
+
+/**
+ * Like {@link parseNumberCell}, but a cell such as `30,1` reads as 30.1. Used only when the
+ * uploader chose to read decimal commas; cells with a point still read as before.
+ */
+export function parseDecimalCommaCell(text: string): number {
+  return DECIMAL_COMMA.test(text) ? Number(text.replace(',', '.')) : parseNumberCell(text);
+}

@@ -9,8 +9,13 @@ import type { Delimiter, OpenedTable, OpenTableOptions, TableHeader } from './ty
 const SAMPLE_CHARS = 64 * 1024;
 /** Lines of the sample used to detect the delimiter. */
 const SAMPLE_LINES = 200;
-/** A row still incomplete after this many characters means a quote was never closed. */
-const MAX_ROW_CHARS = 16 * 1024 * 1024;
+/**
+ * Longest row the reader holds (1 MB of text): a longer one without a line break is not a
+ * table; with line breaks inside, a quote was never closed. Bounding it keeps memory flat and
+ * every stored row whole (catalog-tables.ts keeps up to 16 MB per raw row).
+ */
+export const MAX_ROW_CHARS = 1024 * 1024;
+const MAX_ROW_MB = MAX_ROW_CHARS / (1024 * 1024);
 const QUOTE = '"';
 const CR = 13;
 
@@ -56,6 +61,13 @@ class PapaEngine implements RowEngine {
 
   feed(text: string, final: boolean, sink: RowQueue): void {
     const input = this.buffer.length > 0 ? this.buffer + text : text;
+    if (!final && text.indexOf(this.nlChar) === -1) {
+      // No row can end in this chunk: keep it without re-parsing the held text (a long line
+      // would otherwise be parsed once per chunk).
+      this.buffer = input;
+      this.checkHeld();
+      return;
+    }
     this.sink = sink;
     this.input = input;
     this.prevEnd = 0;
@@ -66,7 +78,12 @@ class PapaEngine implements RowEngine {
     this.buffer = final ? '' : input.slice(this.prevEnd);
     this.lineAtBufferStart = this.lineAtPrevEnd;
     this.input = '';
+    this.checkHeld();
+  }
+
+  private checkHeld(): void {
     if (this.buffer.length > MAX_ROW_CHARS) {
+      if (this.buffer.indexOf(this.nlChar) === -1) throw lineTooLong(this.lineAtBufferStart);
       throw unclosedQuote(this.lineAtBufferStart, 'after');
     }
   }
@@ -121,6 +138,14 @@ function unclosedQuote(line: number, where: 'at' | 'after'): IngestFileError {
   );
 }
 
+function lineTooLong(line: number): IngestFileError {
+  return new IngestFileError(
+    'line-too-long',
+    `line ${line} is longer than ${MAX_ROW_MB} MB; is this a delimited text file with line breaks?`,
+    { line },
+  );
+}
+
 /**
  * Whitespace-separated files (runs of spaces/tabs): one row per physical line, `#` comments,
  * double-quoted tokens may contain spaces.
@@ -142,6 +167,7 @@ class WhitespaceEngine implements RowEngine {
     }
     if (final && start < input.length) this.handleLine(input.slice(start), sink);
     this.buffer = final ? '' : input.slice(start);
+    if (this.buffer.length > MAX_ROW_CHARS) throw lineTooLong(this.line);
   }
 
   private handleLine(raw: string, sink: RowQueue): void {

@@ -16,6 +16,7 @@ export type IngestFileErrorCode =
   | 'unknown-column'
   | 'unknown-unit'
   | 'unclosed-quote'
+  | 'line-too-long'
   | 'truncated-votable'
   | 'malformed-xml'
   | 'unsupported-votable';

@@ -15,7 +15,7 @@ import {
   type NumericField,
   type Rejection,
 } from './canonical';
-import { isMissingCell, parseNumberCell } from './cells';
+import { isMissingCell, parseDecimalCommaCell, parseNumberCell } from './cells';
 import { IngestFileError } from './errors';
 import { mappedColumns, type Mapping } from './mapping';
 import type { RowBatch, TableHeader } from './types';
@@ -25,12 +25,22 @@ const RAD_TO_DEG = 180 / Math.PI;
 
 /** Thrown inside a row conversion; turned into a {@link Rejection} by the caller. */
 class RowProblem {
-  constructor(readonly reason: string) {}
+  constructor(
+    readonly reason: string,
+    readonly column: string | null = null,
+  ) {}
 }
 
 function problem(column: string, value: string, why: string): RowProblem {
-  return new RowProblem(`field \`${column}\` value \`${value}\`: ${why}`);
+  return new RowProblem(`field \`${column}\` value \`${value}\`: ${why}`, column);
 }
+
+/** How cells are read beyond the mapping: `decimalComma` reads `30,1` as 30.1. */
+export interface NormaliseOptions {
+  decimalComma?: boolean;
+}
+
+type NumberParser = (text: string) => number;
 
 /** A scalar canonical field read from one column: value → canonical unit → range check. */
 interface ScalarStep {
@@ -60,9 +70,9 @@ interface Plan {
   scalarFields: NumericField[];
 }
 
-function numberIn(values: string[], index: number, column: string): number {
+function numberIn(values: string[], index: number, column: string, parse: NumberParser): number {
   const text = values[index];
-  const x = parseNumberCell(text);
+  const x = parse(text);
   if (Number.isNaN(x)) {
     if (isMissingCell(text)) throw problem(column, text, 'a value is required');
     throw problem(column, text, 'not a number');
@@ -71,9 +81,14 @@ function numberIn(values: string[], index: number, column: string): number {
 }
 
 /** NaN for an empty/"no value" cell, else the number; non-numeric text is a problem. */
-function optionalNumberIn(values: string[], index: number, column: string): number {
+function optionalNumberIn(
+  values: string[],
+  index: number,
+  column: string,
+  parse: NumberParser,
+): number {
   const text = values[index];
-  const x = parseNumberCell(text);
+  const x = parse(text);
   if (Number.isNaN(x) && !isMissingCell(text)) throw problem(column, text, 'not a number');
   return x;
 }
@@ -92,7 +107,8 @@ function coordinate(read: () => number, column: string, text: string): number {
   }
 }
 
-function compile(header: TableHeader, mapping: Mapping): Plan {
+function compile(header: TableHeader, mapping: Mapping, options: NormaliseOptions): Plan {
+  const parse: NumberParser = options.decimalComma ? parseDecimalCommaCell : parseNumberCell;
   const names = header.columns.map((c) => c.name);
   const needed = mappedColumns(mapping);
   if (names.length === 1 && needed.length > 1) {
@@ -120,7 +136,7 @@ function compile(header: TableHeader, mapping: Mapping): Plan {
   const latIdx = indexOf(pos.lat.column);
   const lonCol = pos.lon.column;
   const latCol = pos.lat.column;
-  const readPosition = positionReader(mapping, lonIdx, latIdx, lonCol, latCol);
+  const readPosition = positionReader(mapping, lonIdx, latIdx, lonCol, latCol, parse);
 
   const steps: ScalarStep[] = [];
   const scalar = (field: NumericField, column: string, factor: number): void => {
@@ -166,7 +182,7 @@ function compile(header: TableHeader, mapping: Mapping): Plan {
       readPosition(values, out);
       for (let k = 0; k < steps.length; k++) {
         const s = steps[k];
-        const raw = optionalNumberIn(values, s.index, s.column);
+        const raw = optionalNumberIn(values, s.index, s.column, parse);
         const x = raw * s.factor;
         if (!Number.isNaN(x)) check(s.schema, x, s.column, values[s.index]);
         out.scalars[k] = x;
@@ -174,7 +190,7 @@ function compile(header: TableHeader, mapping: Mapping): Plan {
       out.vLsrKms = NaN;
       if (vel) {
         const text = values[vIdx];
-        let v = optionalNumberIn(values, vIdx, vel.column) * vFactor;
+        let v = optionalNumberIn(values, vIdx, vel.column, parse) * vFactor;
         if (!Number.isNaN(v)) {
           check(vSchema, v, vel.column, text);
           // Convention first, then the frame shift, added in the radio convention as docs/methods.md ("Velocities") states it.
@@ -229,6 +245,7 @@ function positionReader(
   latIdx: number,
   lonCol: string,
   latCol: string,
+  parse: NumberParser,
 ): (values: string[], out: RowValues) => void {
   const pos = mapping.position;
   const lSchema = canonicalFieldSchemas.lDeg;
@@ -237,9 +254,9 @@ function positionReader(
     const lonFactor = pos.lon.unit === 'rad' ? RAD_TO_DEG : 1;
     const latFactor = pos.lat.unit === 'rad' ? RAD_TO_DEG : 1;
     return (values, out) => {
-      const l = numberIn(values, lonIdx, lonCol) * lonFactor;
+      const l = numberIn(values, lonIdx, lonCol, parse) * lonFactor;
       check(lSchema, l, lonCol, values[lonIdx]);
-      const b = numberIn(values, latIdx, latCol) * latFactor;
+      const b = numberIn(values, latIdx, latCol, parse) * latFactor;
       check(bSchema, b, latCol, values[latIdx]);
       out.lDeg = l < 0 || l >= 360 ? ((l % 360) + 360) % 360 : l;
       out.bDeg = b;
@@ -253,7 +270,7 @@ function positionReader(
       if (isMissingCell(text)) throw problem(lonCol, text, 'a value is required');
       return coordinate(() => parseRaDeg(text, 'hours'), lonCol, text);
     }
-    const x = numberIn(values, lonIdx, lonCol);
+    const x = numberIn(values, lonIdx, lonCol, parse);
     if (raUnit === 'rad') return coordinate(() => parseRaDeg(x * RAD_TO_DEG, 'deg'), lonCol, text);
     return coordinate(() => parseRaDeg(x, raUnit), lonCol, text);
   };
@@ -263,7 +280,7 @@ function positionReader(
       if (isMissingCell(text)) throw problem(latCol, text, 'a value is required');
       return coordinate(() => parseDecDeg(text), latCol, text);
     }
-    const x = numberIn(values, latIdx, latCol) * (decUnit === 'rad' ? RAD_TO_DEG : 1);
+    const x = numberIn(values, latIdx, latCol, parse) * (decUnit === 'rad' ? RAD_TO_DEG : 1);
     return coordinate(() => parseDecDeg(x), latCol, text);
   };
   return (values, out) => {
@@ -299,14 +316,16 @@ function nullable(x: number): number | null {
  * relativistic velocities are converted exactly, heliocentric ones shifted with the standard
  * solar motion); angular radius (arcsec; diameters and FWHM sizes halved); position error
  * (arcsec); velocity error (km/s); line width σ (km/s; FWHM / 2√(2 ln 2)); distance and error
- * (kpc). Throws {@link IngestFileError} when the mapping names a column the header lacks or
- * the header has a single column (a wrong delimiter).
+ * (kpc). With `decimalComma`, numeric cells like `30,1` read as 30.1. Throws
+ * {@link IngestFileError} when the mapping names a column the header lacks or the header has
+ * a single column (a wrong delimiter).
  */
 export function makeRowNormaliser(
   header: TableHeader,
   mapping: Mapping,
+  options: NormaliseOptions = {},
 ): (values: string[], line: number, row?: number) => CanonicalRecord | Rejection {
-  const plan = compile(header, mapping);
+  const plan = compile(header, mapping, options);
   const scratch = newRowValues();
   return (values, line, row = 0) => {
     const reason = convertRow(plan, values, scratch);
@@ -339,15 +358,65 @@ export function isRejection(r: CanonicalRecord | Rejection): r is Rejection {
 }
 
 function convertRow(plan: Plan, values: string[], out: RowValues): string | null {
+  return findProblem(plan, values, out)?.reason ?? null;
+}
+
+function findProblem(plan: Plan, values: string[], out: RowValues): RowProblem | null {
   try {
     if (values.length !== plan.columnCount)
       throw fieldCountProblem(plan.columnCount, values.length);
     plan.convert(values, out);
     return null;
   } catch (e) {
-    if (e instanceof RowProblem) return e.reason;
+    if (e instanceof RowProblem) return e;
     throw e;
   }
+}
+
+/** A cell that would fail normalisation: 0-based column index and the reason. */
+export interface CellProblem {
+  column: number;
+  reason: string;
+}
+
+/**
+ * Stand-ins tried in a bad cell's place to find the row's next bad cell: empty (optional
+ * fields), then values every required position reader accepts.
+ */
+const STAND_INS = ['', '0', '0:00:00'];
+
+/**
+ * Every cell of a row that would fail normalisation under the mapping, not only the first:
+ * the row is converted, the failing cell is replaced by a stand-in that passes, and the
+ * conversion is repeated until the row passes. A wrong field count is reported on column -1.
+ * This is what the preview marks; it uses the same rules as {@link makeBatchNormaliser}.
+ */
+export function makeCellChecker(
+  header: TableHeader,
+  mapping: Mapping,
+  options: NormaliseOptions = {},
+): (values: string[]) => CellProblem[] {
+  const plan = compile(header, mapping, options);
+  const names = header.columns.map((c) => c.name);
+  const scratch = newRowValues();
+  return (values) => {
+    const found: CellProblem[] = [];
+    const row = [...values];
+    for (let guard = 0; guard <= names.length; guard++) {
+      let p = findProblem(plan, row, scratch);
+      if (p === null) break;
+      const column = p.column === null ? -1 : names.indexOf(p.column);
+      found.push({ column, reason: p.reason });
+      if (column === -1) break;
+      for (const standIn of STAND_INS) {
+        row[column] = standIn;
+        p = findProblem(plan, row, scratch);
+        if (p === null || p.column !== names[column]) break;
+      }
+      if (p !== null && p.column === names[column]) break;
+    }
+    return found;
+  };
 }
 
 /** Accepted rows of one batch in flat columns, and the rejected rows with their reasons. */
@@ -363,8 +432,9 @@ export interface NormalisedBatch {
 export function makeBatchNormaliser(
   header: TableHeader,
   mapping: Mapping,
+  options: NormaliseOptions = {},
 ): (batch: RowBatch) => NormalisedBatch {
-  const plan = compile(header, mapping);
+  const plan = compile(header, mapping, options);
   const scratch = newRowValues();
   return (batch) => {
     const n = batch.values.length;

@@ -200,7 +200,7 @@ const ERROR_PREFIX = /^(?:e|err|error|unc)_?(.+)$/;
 const ERROR_SUFFIX = /^(.+?)_?(?:err|error|unc|e)$/;
 
 /** Splits a unit written into a header name: `v [km/s]`, `l (deg)`, `v_kms`, `size_arcmin`. */
-function splitNameUnit(name: string): { base: string; unit: string | null } {
+export function splitNameUnit(name: string): { base: string; unit: string | null } {
   const bracket = /^(.*?)\s*[([{]\s*([^)\]}]*?)\s*[)\]}]\s*$/.exec(name);
   if (bracket && bracket[1].length > 0) return { base: bracket[1], unit: bracket[2] };
   const suffix = /^(.+?)[_.]([A-Za-z/]+(?:-1)?)$/.exec(name);

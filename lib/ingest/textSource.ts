@@ -18,6 +18,7 @@ export class TextSource {
   private started = false;
   private done = false;
   private linesSeen = 0;
+  private bytesSeen = 0;
 
   constructor(stream: Readable) {
     this.bytes = stream[Symbol.asyncIterator]();
@@ -91,9 +92,21 @@ export class TextSource {
 
   /**
    * Invalid UTF-8 past the first KB decodes to U+FFFD; that is an error naming the line,
-   * unless the file really contains encoded U+FFFD characters.
+   * unless the file really contains encoded U+FFFD characters. A NUL byte anywhere rejects the
+   * whole file: no text table holds one, and a stored `X\0Y` would break names and exports.
    */
   private checkDecoded(text: string, raw: Buffer): void {
+    const nulAt = text.indexOf('\0');
+    if (nulAt !== -1) {
+      const line = this.linesSeen + countChar(text, 10, 0, nulAt) + 1;
+      const byte = this.bytesSeen + raw.indexOf(0) + 1;
+      throw new IngestFileError(
+        'binary-file',
+        `line ${line} (byte ${byte}): binary data (a NUL byte) in the file; a text table or VOTable cannot contain one, so nothing was stored — remove it or export the table again as text`,
+        { line, byte },
+      );
+    }
+    this.bytesSeen += raw.length;
     const bad = text.indexOf(REPLACEMENT);
     if (bad !== -1 && !raw.includes(ENCODED_REPLACEMENT)) {
       const line = this.linesSeen + countChar(text, 10, 0, bad) + 1;

@@ -4,11 +4,13 @@
  * `OrderingResult` of `@/lib/ordering/types`.
  */
 import { z } from 'zod';
+import { ARM_MODEL_PRESETS } from '@/lib/astro/arms';
 import type { DistanceChoice } from '@/lib/ordering/types';
+import { plainText } from './text';
 
 /** One arm the user defines: a log spiral over a range of Galactocentric azimuth. */
 export const customArmSchema = z.object({
-  name: z.string().trim().min(1).max(60),
+  name: plainText({ max: 60 }).min(1),
   Rref: z.number().positive().max(50),
   betaRefDeg: z.number().min(-720).max(720),
   pitchDeg: z.number().gt(-60).lt(60),
@@ -33,7 +35,10 @@ export const analysisSchema = z.object({
   }),
   arms: z.union([
     z.object({
-      preset: z.string().min(1),
+      // Own keys only: `__proto__` or `constructor` would otherwise find Object.prototype's.
+      preset: z.string().refine((k) => Object.hasOwn(ARM_MODEL_PRESETS, k), {
+        message: `No such arm model; use one of ${Object.keys(ARM_MODEL_PRESETS).join(', ')}.`,
+      }),
       /** Scale the preset's radii from the R0 it was fitted with to the curve's R0. */
       rescaleToCurveR0: z.boolean().optional(),
     }),
@@ -90,7 +95,7 @@ export const projectTargetSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('milky-way') }),
   z.object({
     kind: z.literal('external-galaxy'),
-    name: z.string().trim().max(100).optional(),
+    name: plainText({ max: 100 }).optional(),
     galaxy: externalGalaxySchema,
   }),
 ]);

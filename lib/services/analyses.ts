@@ -16,6 +16,7 @@ import { ARM_MODEL_PRESETS } from '@/lib/astro/arms';
 import { ROTATION_CURVE_PRESETS } from '@/lib/astro/rotation-curves';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
+import { plainText } from '@/lib/schemas/text';
 import {
   runOrderingAnalysis,
   type OrderingComplex,
@@ -286,7 +287,7 @@ export async function analysisProject(analysisId: string) {
 
 export const distanceOverrideSchema = z.object({
   distKpc: z.number().positive().max(50).nullable(),
-  note: z.string().max(2000).default(''),
+  note: plainText({ max: 2000, multiline: true }).default(''),
 });
 
 /** Sets (or clears, with null) an editor's distance for a complex; recorded in the audit log. */

@@ -6,6 +6,7 @@ import { withStatementTimeout, type LimitedDb } from '@/db/statement-timeout';
 import { HttpError } from '@/lib/http/errors';
 import { csvLine } from '@/lib/export/csv';
 import type { RowDataPacket } from 'mysql2';
+import { optionalQueryNumber, queryPaging } from '@/lib/schemas/query';
 import { catalogState, pointsPath } from './catalogs';
 import { rowsTable, rowsTableName } from './catalog-tables';
 
@@ -21,11 +22,11 @@ const SORTABLE = {
   distKpc: 'dist_kpc',
 } as const;
 
-const num = z.coerce.number().finite().optional();
+const num = optionalQueryNumber;
 
 export const rowsQuerySchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(500).default(50),
+  page: queryPaging(1, Number.MAX_SAFE_INTEGER, 1),
+  pageSize: queryPaging(1, 500, 50),
   sort: z.enum(Object.keys(SORTABLE) as [keyof typeof SORTABLE]).default('row'),
   dir: z.enum(['asc', 'desc']).default('asc'),
   q: z.string().trim().max(128).optional(),

@@ -6,6 +6,7 @@ import { catalogs, jobs, linkRuns, projects, users } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
 import { projectTargetSchema } from '@/lib/schemas/analyses';
+import { plainText } from '@/lib/schemas/text';
 import { requestCancel } from './jobs';
 
 /** The link-run body of API.md, with the options a careful user needs made explicit. */
@@ -31,7 +32,7 @@ export const linkRunSchema = z.object({
   chanceTrials: z.number().int().min(0).max(10).default(0),
   missingVelocity: z.enum(['exclude', 'position-only']).default('exclude'),
   complexCap: z.number().int().min(2).max(100_000).default(500),
-  name: z.string().trim().max(200).optional(),
+  name: plainText({ max: 200 }).optional(),
 });
 
 export type LinkRunParams = z.infer<typeof linkRunSchema>;

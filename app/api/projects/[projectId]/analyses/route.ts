@@ -3,6 +3,8 @@ import { json, jsonBody, route } from '@/lib/http/handler';
 import { externalAnalysisSchema } from '@/lib/schemas/analyses';
 import { analysisSchema, listAnalyses, startAnalysis } from '@/lib/services/analyses';
 import { startExternalAnalysis } from '@/lib/services/external-analyses';
+import { HttpError } from '@/lib/http/errors';
+import { runProject } from '@/lib/services/link-runs';
 
 type P = { projectId: string };
 
@@ -19,13 +21,25 @@ const START = 'run ordering analyses';
  * its field instead of by the union as a whole.
  */
 export const POST = route<P>(async (req, { projectId }) => {
+  const { user } = await requireProjectRole(projectId, 'editor', req, START);
   const body = await jsonBody(req);
   if ((body as { kind?: unknown } | null)?.kind === 'external-galaxy') {
     const params = externalAnalysisSchema.parse(body);
-    const { user } = await requireProjectRole(projectId, 'editor', req, START);
+    if (params.runId) await requireRunOfProject(params.runId, projectId);
     return json({ analysis: await startExternalAnalysis(projectId, user.id, params) }, 202);
   }
   const params = analysisSchema.parse(body);
-  const { user } = await requireProjectRole(projectId, 'editor', req, START);
+  await requireRunOfProject(params.runId, projectId);
   return json({ analysis: await startAnalysis(projectId, user.id, params) }, 202);
 });
+
+/** Another project's run answers as a missing one, whatever its state, so nothing leaks. */
+async function requireRunOfProject(runId: string, projectId: string) {
+  const owner = await runProject(runId).catch((e: unknown) => {
+    if (e instanceof HttpError && e.status === 404) return null;
+    throw e;
+  });
+  if (owner !== projectId) {
+    throw new HttpError(400, 'unknown_run', 'runId: no such link run in this project.');
+  }
+}

@@ -10,7 +10,7 @@ export const GET = route<P>(async (req, { projectId }) => {
 });
 
 export const POST = route<P>(async (req, { projectId }) => {
-  const params = linkRunSchema.parse(await jsonBody(req));
   const { user } = await requireProjectRole(projectId, 'editor', req, 'start link runs');
+  const params = linkRunSchema.parse(await jsonBody(req));
   return json({ run: await startLinkRun(projectId, user.id, params) }, 202);
 });

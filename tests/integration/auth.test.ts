@@ -43,7 +43,7 @@ describe('sign-up, sign-in, sign-out', () => {
     expect(b.signedIn).toBe(false);
   });
 
-  it('rate-limits sign-in attempts per address with 429', async () => {
+  it('rate-limits failed sign-ins of an address from one client with 429', async () => {
     const { email } = await newUser('limit');
     const c = new Client();
     for (let i = 0; i < 10; i++) expect(await c.signIn(email, `wrong-${i}-password`)).not.toBe(429);

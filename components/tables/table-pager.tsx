@@ -2,6 +2,7 @@
 
 import type { PaginationState, Table } from '@tanstack/react-table';
 import { Button } from '@/components/ui/button';
+import { Skeleton } from '@/components/ui/skeleton';
 
 export const PAGE_SIZES = [25, 50, 100, 250, 500];
 
@@ -10,6 +11,7 @@ const count = (n: number) => n.toLocaleString('en-US');
 /**
  * The paging bar under a server-paged table: "first–last of total", a page-size choice and
  * First / Previous / Next / Last. The page count comes from the table (manualPagination).
+ * While the first page is `loading` the range is a placeholder, never "0–0 of 0".
  */
 export function TablePager<T>({
   table,
@@ -18,6 +20,7 @@ export function TablePager<T>({
   setPagination,
   sizeLabel,
   rangeTestId,
+  loading = false,
 }: {
   table: Table<T>;
   total: number;
@@ -25,6 +28,7 @@ export function TablePager<T>({
   setPagination: (p: PaginationState) => void;
   sizeLabel: string;
   rangeTestId: string;
+  loading?: boolean;
 }) {
   const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
   const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
@@ -35,9 +39,13 @@ export function TablePager<T>({
   );
   return (
     <div className="flex flex-wrap items-center gap-3 text-sm">
-      <span className="num text-ink-soft" data-testid={rangeTestId}>
-        {count(first)}–{count(last)} of {count(total)}
-      </span>
+      {loading ? (
+        <Skeleton className="h-4 w-28" label="Loading the page count" />
+      ) : (
+        <span className="num text-ink-soft" data-testid={rangeTestId}>
+          {count(first)}–{count(last)} of {count(total)}
+        </span>
+      )}
       <label className="flex items-center gap-1.5">
         <span className="text-ink-soft">{sizeLabel}</span>
         <select
@@ -55,9 +63,13 @@ export function TablePager<T>({
       <span className="ml-auto flex items-center gap-1.5">
         {step('First', () => table.firstPage(), table.getCanPreviousPage())}
         {step('Previous', () => table.previousPage(), table.getCanPreviousPage())}
-        <span className="num px-1" data-testid="page-of">
-          page {pagination.pageIndex + 1} of {table.getPageCount()}
-        </span>
+        {loading ? (
+          <Skeleton className="h-4 w-20" label="Loading the page count" />
+        ) : (
+          <span className="num px-1" data-testid="page-of">
+            page {pagination.pageIndex + 1} of {table.getPageCount()}
+          </span>
+        )}
         {step('Next', () => table.nextPage(), table.getCanNextPage())}
         {step('Last', () => table.lastPage(), table.getCanNextPage())}
       </span>

@@ -10,14 +10,15 @@ export function Panel({
   className?: string;
 }) {
   return (
-    <section className={`rounded-lg border border-rule bg-white/70 shadow-sm ${className}`}>
+    <section className={`min-w-0 rounded-lg border border-rule bg-white/70 shadow-sm ${className}`}>
       {(title || actions) && (
         <header className="flex items-center justify-between border-b border-rule px-4 py-2.5">
           {title && <h2 className="text-sm font-semibold tracking-wide text-ink">{title}</h2>}
           {actions}
         </header>
       )}
-      <div className="p-4">{children}</div>
+      {/* Wide tables scroll inside the card, never the page. */}
+      <div className="overflow-x-auto p-4">{children}</div>
     </section>
   );
 }

@@ -208,6 +208,12 @@ export const catalogs = mysqlTable(
       .default('skip-bad-rows'),
     mapping: json('mapping').$type<Record<string, unknown>>(),
     columns: json('columns').$type<string[]>(),
+    /** Numeric cells like `30,1` are read as 30.1 (chosen at upload). */
+    decimalComma: boolean('decimal_comma').notNull().default(false),
+    /** Every assumption the normaliser made for this mapping, as sentences. */
+    assumptions: json('assumptions').$type<string[]>(),
+    /** Data rows read when the whole file was read through; null when reading stopped early. */
+    dataRowCount: int('data_row_count'),
     jobId: bigint('job_id', { mode: 'number', unsigned: true }),
     createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),

@@ -1,2 +1,3 @@
--- Placeholder until this migration has statements.
-SELECT 1;
+ALTER TABLE `catalogs` ADD `decimal_comma` boolean DEFAULT false NOT NULL;--> statement-breakpoint
+ALTER TABLE `catalogs` ADD `assumptions` json;--> statement-breakpoint
+ALTER TABLE `catalogs` ADD `data_row_count` int;

@@ -88,7 +88,14 @@ export async function ingestCatalog(
   if (!c) throw new Error(`catalog ${catalogId} no longer exists`);
   await db
     .update(catalogs)
-    .set({ status: 'ingesting', progress: 0, error: null })
+    .set({
+      status: 'ingesting',
+      progress: 0,
+      error: null,
+      rowCount: 0,
+      rejectedCount: 0,
+      dataRowCount: null,
+    })
     .where(eq(catalogs.id, catalogId));
   await clearStoredRows(catalogId);
   await createLoadTable(catalogId);
@@ -98,11 +105,18 @@ export async function ingestCatalog(
   const table = await openTable(fs.createReadStream(c.filePath).pipe(counter), {
     batchSize: PARSE_BATCH_ROWS,
   });
-  const normalise = makeBatchNormaliser(table.header, c.mapping as Mapping);
+  const normalise = makeBatchNormaliser(table.header, c.mapping as Mapping, {
+    decimalComma: c.decimalComma,
+  });
   const pointsTmp = `${pointsPath(catalogId)}.tmp`;
   const points = fs.createWriteStream(pointsTmp);
   let rowCount = 0;
   let rejectedCount = 0;
+  let dataRows = 0;
+  let firstReject: Rejection | null = null;
+  // Under the reject-file policy the file is still read to its end after the first bad row, so
+  // that the report counts and lists every bad row; nothing more is stored.
+  const rejectingFile = () => c.policy === 'reject-file' && rejectedCount > 0;
   let lastReport = 0;
   // The database stores one LOAD batch while JavaScript parses the next: both cores stay busy.
   let storing: Promise<void> = Promise.resolve();
@@ -115,18 +129,12 @@ export async function ingestCatalog(
   try {
     for await (const batch of table.batches) {
       const { columns, rejected } = normalise(batch);
-      if (rejected.length && c.policy === 'reject-file') {
-        await insertRejects(catalogId, rejected.slice(0, 1000));
-        const first = rejected[0];
-        throw new IngestFileError(
-          'rejected-row',
-          `The file was rejected as a whole (policy: reject the file on any bad row): line ${first.line}: ${first.reason}`,
-          { line: first.line },
-        );
-      }
+      dataRows += batch.values.length;
       if (rejectedCount < MAX_STORED_REJECTS)
         await insertRejects(catalogId, rejected.slice(0, MAX_STORED_REJECTS - rejectedCount));
       rejectedCount += rejected.length;
+      firstReject ??= rejected[0] ?? null;
+      if (rejectingFile()) continue;
       appendTsvLines(columns, pending);
       if (pending.length >= LOAD_BATCH_ROWS) await store();
       rowCount += columns.count;
@@ -151,18 +159,27 @@ export async function ingestCatalog(
     await new Promise<void>((resolve, reject) =>
       points.end((err?: Error | null) => (err ? reject(err) : resolve())),
     );
-    if (rowCount === 0) {
-      throw new IngestFileError(
-        'no-data-rows',
-        `No row of the file passed validation (${rejectedCount} rejected); see the parse report.`,
-      );
+    if (rejectingFile() || rowCount === 0) {
+      // The whole file was read: the report (counts and list) is complete and stays.
+      await db
+        .update(catalogs)
+        .set({ rowCount: 0, rejectedCount, dataRowCount: dataRows })
+        .where(eq(catalogs.id, catalogId));
+      throw rowsFailed(c.policy, dataRows, rejectedCount, firstReject);
     }
     await progress(0.99);
     await finaliseLoadTable(catalogId);
     fs.renameSync(pointsTmp, pointsPath(catalogId));
     await db
       .update(catalogs)
-      .set({ status: 'ready', progress: 1, rowCount, rejectedCount, readyAt: sql`NOW(3)` })
+      .set({
+        status: 'ready',
+        progress: 1,
+        rowCount,
+        rejectedCount,
+        dataRowCount: dataRows,
+        readyAt: sql`NOW(3)`,
+      })
       .where(eq(catalogs.id, catalogId));
   } catch (e) {
     await storing.catch(() => undefined);
@@ -172,12 +189,54 @@ export async function ingestCatalog(
   }
 }
 
-/** Marks a catalog failed with its reason and removes every stored row (the report stays). */
+/**
+ * Why a fully read file yields no catalog, with the counts the report shows: every row was bad,
+ * or the reject-file policy met a bad row. Like every stored reason it has no closing period.
+ */
+function rowsFailed(
+  policy: 'skip-bad-rows' | 'reject-file',
+  dataRows: number,
+  rejectedCount: number,
+  first: Rejection | null,
+): IngestFileError {
+  const firstBad = first ? `; the first is line ${first.line}: ${first.reason}` : '';
+  if (policy === 'reject-file' && rejectedCount > 0) {
+    return new IngestFileError(
+      'rejected-row',
+      `the file was rejected as a whole (policy: reject the file on any bad row): ${rejectedCount} of ${dataRows} data rows are bad${firstBad}`,
+      { line: first?.line, rejectedCount, dataRowCount: dataRows },
+    );
+  }
+  return new IngestFileError(
+    'no-data-rows',
+    `no row of the file passed validation: all ${dataRows} data rows were rejected${firstBad}`,
+    { line: first?.line, rejectedCount, dataRowCount: dataRows },
+  );
+}
+
+/**
+ * Marks a catalog failed with its reason and removes every stored row. The parse report stays
+ * only when the whole file was read (`dataRowCount` set); a file that failed part-way (unreadable
+ * bytes, a crash, a cancel) has no row report, so rejects found before the failure are removed
+ * and its count is 0, matching the list.
+ */
 export async function failIngest(catalogId: string, reason: string) {
   await dropRowsTables(catalogId);
+  const [c] = await db
+    .select({ dataRowCount: catalogs.dataRowCount })
+    .from(catalogs)
+    .where(eq(catalogs.id, catalogId));
+  if (c && c.dataRowCount === null) {
+    await db.execute(sql`DELETE FROM catalog_rejects WHERE catalog_id = ${catalogId}`);
+  }
   await db
     .update(catalogs)
-    .set({ status: 'failed', error: reason.slice(0, 2000), rowCount: 0 })
+    .set({
+      status: 'failed',
+      error: reason.replace(/\.+$/, '').slice(0, 2000),
+      rowCount: 0,
+      ...(c && c.dataRowCount === null ? { rejectedCount: 0 } : {}),
+    })
     .where(eq(catalogs.id, catalogId));
   fs.rmSync(`${pointsPath(catalogId)}.tmp`, { force: true });
   fs.rmSync(pointsPath(catalogId), { force: true });

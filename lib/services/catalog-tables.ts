@@ -39,7 +39,7 @@ export async function createLoadTable(catalogId: string) {
     line_width_kms DOUBLE NULL,
     dist_kpc DOUBLE NULL,
     dist_err_kpc DOUBLE NULL,
-    original TEXT NULL
+    original MEDIUMTEXT NULL
   ) ENGINE=InnoDB DEFAULT CHARSET=utf8mb4 COLLATE=utf8mb4_unicode_ci`);
 }
 

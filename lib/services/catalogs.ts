@@ -6,23 +6,11 @@ import { db } from '@/db/client';
 import { TRACER_KINDS, catalogRejects, catalogs, jobs, users } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import { conflict, HttpError, notFound } from '@/lib/http/errors';
-import { IngestFileError } from '@/lib/ingest/errors';
-import { mappingSchema, type Mapping } from '@/lib/ingest/mapping';
-import { makeBatchNormaliser } from '@/lib/ingest/normalise';
-import { previewFile } from '@/lib/ingest/preview';
-import { mappingFromSuggestion, suggestMapping } from '@/lib/ingest/suggest';
 import { dropRowsTables } from './catalog-tables';
-import { receiveUpload, uploadDir } from './uploads';
+import { checkUpload, receiveUpload, uploadDir } from './uploads';
 
 export const kindSchema = z.enum(TRACER_KINDS);
 export const policySchema = z.enum(['skip-bad-rows', 'reject-file']);
-
-const uploadFieldsSchema = z.object({
-  name: z.string().trim().min(1, 'Give the catalog a name.').max(200),
-  kind: kindSchema,
-  policy: policySchema.default('skip-bad-rows'),
-  mapping: z.string().optional(),
-});
 
 export type CatalogSummary = {
   id: string;
@@ -43,44 +31,6 @@ export type CatalogSummary = {
   createdBy: { id: string; name: string } | null;
 };
 
-/** A file-level problem of an upload as an HTTP answer saying what and where. */
-function fileError(e: IngestFileError): HttpError {
-  const status =
-    e.code === 'ambiguous-position-columns' || e.code === 'no-position-columns' ? 422 : 400;
-  return new HttpError(status, e.code, e.message, e.details);
-}
-
-/** The mapping screen: format, delimiter, columns, first rows and the suggested mapping. */
-export async function previewUpload(req: Request) {
-  const dir = uploadDir(`preview-${newId()}`);
-  try {
-    const { file } = await receiveUpload(req, dir, 8 * 1024 * 1024);
-    if (!file) throw new HttpError(400, 'no_file', 'Attach the file as the multipart part "file".');
-    let buf = fs.readFileSync(file.path);
-    // The browser sends only the start of a big file: drop a line cut in half at the end.
-    const lastNewline = buf.lastIndexOf(0x0a);
-    if (lastNewline > 0 && lastNewline < buf.length - 1) buf = buf.subarray(0, lastNewline + 1);
-    const preview = await previewFile(buf, 20).catch((e) => {
-      throw e instanceof IngestFileError ? fileError(e) : e;
-    });
-    const suggestion = suggestMapping(
-      preview.header,
-      preview.rows.map((r) => r.values),
-    );
-    return {
-      preview: {
-        format: preview.format,
-        delimiter: preview.delimiter,
-        columns: preview.header.columns,
-        rows: preview.rows,
-      },
-      suggestion,
-    };
-  } finally {
-    fs.rmSync(dir, { recursive: true, force: true });
-  }
-}
-
 /**
  * Receives an upload, checks it as a whole (readable, has rows, position columns resolvable,
  * mapping fits the columns), records the catalog and its ingest job, and returns at once.
@@ -96,26 +46,8 @@ export async function createCatalog(
   const { fields, file } = await receiveUpload(req, dir);
   try {
     if (!file) throw new HttpError(400, 'no_file', 'Attach the file as the multipart part "file".');
-    const input = uploadFieldsSchema.parse(fields);
-    let mapping: Mapping;
-    const preview = await previewFile(file.path, 50);
-    if (input.mapping) {
-      let parsed: unknown;
-      try {
-        parsed = JSON.parse(input.mapping);
-      } catch {
-        throw new HttpError(400, 'invalid_mapping', 'The mapping field is not valid JSON.');
-      }
-      mapping = mappingSchema.parse(parsed);
-    } else {
-      const suggestion = suggestMapping(
-        preview.header,
-        preview.rows.map((r) => r.values),
-      );
-      mapping = mappingFromSuggestion(suggestion, preview.header);
-    }
-    // Building the normaliser checks that every mapped column exists in the file.
-    makeBatchNormaliser(preview.header, mapping);
+    const input = await checkUpload(fields, file.path);
+    const { preview, mapping } = input;
     await db.transaction(async (tx) => {
       const [job] = await tx
         .insert(jobs)
@@ -132,6 +64,8 @@ export async function createCatalog(
         format: preview.format,
         mapping: mapping as Record<string, unknown>,
         columns: preview.header.columns.map((c) => c.name),
+        decimalComma: input.decimalComma,
+        assumptions: input.assumptions,
         jobId: Number(job.insertId),
         createdBy: userId,
       });
@@ -139,7 +73,6 @@ export async function createCatalog(
     return getCatalog(id);
   } catch (e) {
     fs.rmSync(dir, { recursive: true, force: true });
-    if (e instanceof IngestFileError) throw fileError(e);
     throw e;
   }
 }
@@ -217,7 +150,13 @@ export async function catalogState(id: string) {
 export async function getCatalogDetail(id: string) {
   const summary = await getCatalog(id);
   const [c] = await db
-    .select({ mapping: catalogs.mapping, columns: catalogs.columns })
+    .select({
+      mapping: catalogs.mapping,
+      columns: catalogs.columns,
+      decimalComma: catalogs.decimalComma,
+      assumptions: catalogs.assumptions,
+      dataRowCount: catalogs.dataRowCount,
+    })
     .from(catalogs)
     .where(eq(catalogs.id, id));
   const rejected = await db
@@ -226,7 +165,15 @@ export async function getCatalogDetail(id: string) {
     .where(eq(catalogRejects.catalogId, id))
     .orderBy(asc(catalogRejects.line))
     .limit(1000);
-  return { ...summary, mapping: c?.mapping ?? null, columns: c?.columns ?? [], rejected };
+  return {
+    ...summary,
+    mapping: c?.mapping ?? null,
+    columns: c?.columns ?? [],
+    decimalComma: c?.decimalComma ?? false,
+    assumptions: c?.assumptions ?? [],
+    dataRowCount: c?.dataRowCount ?? null,
+    rejected,
+  };
 }
 
 export async function deleteCatalog(id: string): Promise<void> {

@@ -4,7 +4,10 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { api, ApiError } from '@/lib/api-client';
+import { mappingAssumptions } from '@/lib/ingest/assumptions';
 import type { Mapping } from '@/lib/ingest/mapping';
+import { previewBadCells } from '@/lib/ingest/preview-check';
+import type { TableHeader } from '@/lib/ingest/types';
 import { TRACERS, TRACER_KINDS, type TracerKind } from '@/lib/tracers';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
@@ -70,6 +73,7 @@ export function CatalogUpload({ projectId }: { projectId: string }) {
   const [name, setName] = useState('');
   const [kind, setKind] = useState<TracerKind | ''>('');
   const [policy, setPolicy] = useState<Policy>('skip-bad-rows');
+  const [decimalComma, setDecimalComma] = useState(false);
   const [reading, setReading] = useState(false);
   const [uploading, setUploading] = useState(false);
   const [previewError, setPreviewError] = useState<string | null>(null);
@@ -94,6 +98,7 @@ export function CatalogUpload({ projectId }: { projectId: string }) {
       const first = s.candidates[0];
       const position = s.positionUnambiguous && first ? positionOf(first) : undefined;
       setDraft(draftFromMapping(s.mapping ?? { ...s.fields, position }));
+      setDecimalComma(res.decimalComma?.applied ?? false);
       setPreview(res);
     } catch (e) {
       setPreviewError(`${f.name} could not be read: ${explainUpload(e, f)}`);
@@ -121,6 +126,7 @@ export function CatalogUpload({ projectId }: { projectId: string }) {
       body.set('name', name.trim());
       body.set('kind', kind);
       body.set('policy', policy);
+      body.set('decimalComma', String(decimalComma));
       body.set('mapping', JSON.stringify(checked.mapping));
       const { catalog } = await api<{ catalog: CatalogJson }>(
         `/api/projects/${projectId}/catalogs`,
@@ -138,6 +144,29 @@ export function CatalogUpload({ projectId }: { projectId: string }) {
   }
 
   const check = preview ? mappingFromDraft(draft) : null;
+  const header: TableHeader | null = preview
+    ? {
+        format: preview.preview.format,
+        delimiter: preview.preview.delimiter,
+        columns: preview.preview.columns,
+        headerLine: preview.preview.headerLine ?? null,
+      }
+    : null;
+  const mapped = header && check && 'mapping' in check ? check.mapping : null;
+  const cellCheck =
+    header && mapped
+      ? previewBadCells(
+          header,
+          mapped,
+          preview!.preview.rows.map((r) => r.values),
+          { decimalComma },
+        )
+      : null;
+  const assumptions =
+    header && mapped && cellCheck && 'cells' in cellCheck
+      ? mappingAssumptions(header, mapped, { decimalComma })
+      : [];
+  const commaColumns = preview?.decimalComma?.columns ?? [];
   return (
     <div className="space-y-6">
       <Panel title="1 · Choose a file">
@@ -171,10 +200,48 @@ export function CatalogUpload({ projectId }: { projectId: string }) {
                 suggestion={preview.suggestion}
                 onUseCandidate={(c) => setDraft(withPosition(draft, positionOf(c)))}
               />
-              <PreviewTable preview={preview.preview} roles={roleOfColumns(draft)} />
+              {(commaColumns.length > 0 || decimalComma) && (
+                <div className="rounded-md border border-accent/30 bg-accent-soft/40 px-3 py-2 text-sm">
+                  {commaColumns.length > 0 && (
+                    <p>
+                      Numbers in {commaColumns.map((c) => `\`${c}\``).join(', ')} are written with a
+                      decimal comma (like 30,1).
+                    </p>
+                  )}
+                  <label className="mt-1 flex items-center gap-2">
+                    <input
+                      type="checkbox"
+                      name="decimalComma"
+                      checked={decimalComma}
+                      onChange={(e) => setDecimalComma(e.target.checked)}
+                    />
+                    Read 30,1 as 30.1
+                  </label>
+                </div>
+              )}
+              <PreviewTable
+                preview={preview.preview}
+                roles={roleOfColumns(draft)}
+                badCells={cellCheck && 'cells' in cellCheck ? cellCheck.cells : []}
+              />
+              {cellCheck && 'problem' in cellCheck && (
+                <p className="text-sm text-danger">{cellCheck.problem}</p>
+              )}
               <MappingForm draft={draft} columns={preview.preview.columns} onChange={setDraft} />
               {check && 'problem' in check && (
                 <p className="text-sm text-danger">{check.problem}</p>
+              )}
+              {assumptions.length > 0 && (
+                <div className="text-sm" data-testid="assumptions">
+                  <p className="font-medium">
+                    Assumptions the reading makes with this mapping (stored with the catalog):
+                  </p>
+                  <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-soft">
+                    {assumptions.map((a) => (
+                      <li key={a}>{a}</li>
+                    ))}
+                  </ul>
+                </div>
               )}
             </div>
           </Panel>

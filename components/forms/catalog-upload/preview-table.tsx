@@ -1,3 +1,4 @@
+import type { BadCell } from '@/lib/ingest/preview-check';
 import type { PreviewResponse } from './preview-types';
 
 const DELIMITER_WORDS: Record<string, string> = {
@@ -7,14 +8,21 @@ const DELIMITER_WORDS: Record<string, string> = {
   whitespace: 'spaces',
 };
 
-/** The first rows of the file as the server read them, each header marked with its mapped field. */
+/**
+ * The first rows of the file as the server read them, each header marked with its mapped field
+ * and each cell the ingest would reject under the current mapping marked, its reason as a tooltip.
+ */
 export function PreviewTable({
   preview,
   roles,
+  badCells = [],
 }: {
   preview: PreviewResponse['preview'];
   roles: Map<string, string[]>;
+  badCells?: BadCell[];
 }) {
+  const bad = new Map(badCells.map((c) => [`${c.rowIndex}:${c.column}`, c.reason]));
+  const badRows = new Set(badCells.map((c) => c.rowIndex)).size;
   const how =
     preview.format === 'votable'
       ? 'Read as a VOTable.'
@@ -24,6 +32,16 @@ export function PreviewTable({
       <p className="mb-2 text-xs text-ink-soft">
         {how} The first {preview.rows.length} data rows; the line numbers are those of the file.
       </p>
+      {badCells.length > 0 ? (
+        <p className="mb-2 text-sm text-danger" data-testid="bad-cell-count">
+          {badCells.length} cell{badCells.length === 1 ? '' : 's'} in {badRows} of these rows would
+          be rejected with this mapping (marked; point at a cell for the reason).
+        </p>
+      ) : (
+        <p className="mb-2 text-sm text-ok" data-testid="bad-cell-count">
+          Every cell shown passes the checks with this mapping.
+        </p>
+      )}
       <div className="max-h-96 overflow-auto rounded-md border border-rule bg-white">
         <table className="w-full text-xs" aria-label="Preview of the file">
           <thead className="sticky top-0 bg-paper-deep text-left">
@@ -46,14 +64,24 @@ export function PreviewTable({
             </tr>
           </thead>
           <tbody className="divide-y divide-rule font-mono">
-            {preview.rows.map((r) => (
-              <tr key={r.row}>
-                <td className="num px-2 py-1 text-ink-soft">{r.line}</td>
-                {preview.columns.map((c, i) => (
-                  <td key={c.name} className="px-2 py-1 whitespace-nowrap">
-                    {r.values[i] ?? ''}
-                  </td>
-                ))}
+            {preview.rows.map((r, k) => (
+              <tr key={r.row} className={bad.has(`${k}:-1`) ? 'bg-danger/10' : undefined}>
+                <td className="num px-2 py-1 text-ink-soft" title={bad.get(`${k}:-1`)}>
+                  {r.line}
+                </td>
+                {preview.columns.map((c, i) => {
+                  const reason = bad.get(`${k}:${i}`);
+                  return (
+                    <td
+                      key={c.name}
+                      title={reason}
+                      data-bad={reason ? 'true' : undefined}
+                      className={`px-2 py-1 whitespace-nowrap ${reason ? 'bg-danger/10 text-danger underline decoration-wavy' : ''}`}
+                    >
+                      {r.values[i] ?? ''}
+                    </td>
+                  );
+                })}
               </tr>
             ))}
           </tbody>

@@ -1,4 +1,5 @@
 import type { Mapping } from '@/lib/ingest/mapping';
+import type { DecimalCommaJson } from '@/lib/schemas/catalogs';
 
 /** One column of the previewed file, with the unit and UCD a VOTable gives. */
 export interface PreviewColumn {
@@ -20,9 +21,13 @@ export interface PreviewResponse {
   preview: {
     format: 'delimited' | 'votable';
     delimiter: ',' | '\t' | ';' | 'whitespace' | null;
+    /** 1-based header line, or null for a headerless file (when the server sends it). */
+    headerLine?: number | null;
     columns: PreviewColumn[];
     rows: { row: number; line: number; values: string[] }[];
   };
+  /** Columns that look like `30,1` and whether the suggestion read them so (when the server sends it). */
+  decimalComma?: DecimalCommaJson;
   suggestion: {
     mapping: Mapping | null;
     positionUnambiguous: boolean;

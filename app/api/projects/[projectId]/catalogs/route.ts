@@ -9,7 +9,7 @@ export const GET = route<P>(async (req, { projectId }) => {
   return json({ catalogs: await listCatalogs(projectId) });
 });
 
-/** Multipart upload: file, name, kind, optional mapping (JSON) and policy → 202 with the queued catalog. */
+/** Multipart upload: file, name, kind, optional mapping (JSON), policy and decimalComma → 202 with the queued catalog. */
 export const POST = route<P>(async (req, { projectId }) => {
   const { user } = await requireProjectRole(projectId, 'editor', req, 'upload catalogs');
   return json({ catalog: await createCatalog(req, projectId, user.id) }, 202);

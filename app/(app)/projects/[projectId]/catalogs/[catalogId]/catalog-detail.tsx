@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
 import { api } from '@/lib/api-client';
 import type { Mapping } from '@/lib/ingest/mapping';
+import { asSentence, describeParseReport } from '@/lib/ingest/report';
 import { tracerStyle } from '@/lib/tracers';
 import { CatalogPlots } from '@/components/plots/catalog-plots';
 import { CatalogRowsTable } from '@/components/tables/catalog-rows-table';
@@ -24,6 +25,9 @@ type CatalogDetailJson = CatalogJson & {
   rejected: { line: number; reason: string }[];
   mapping: Mapping | null;
   columns: string[];
+  dataRowCount: number | null;
+  decimalComma: boolean;
+  assumptions: string[];
 };
 
 const FRAME_WORDS: Record<string, string> = { lsr: 'LSR', heliocentric: 'heliocentric' };
@@ -81,40 +85,36 @@ function Fact({ label, children }: { label: string; children: React.ReactNode })
   );
 }
 
+const TONE_CLASS = { ok: 'text-ok', warn: '', error: 'text-danger' } as const;
+
+/** The parse report: one summary that agrees with status, counts and list, then the rejected rows. */
 function ParseReport({ catalog }: { catalog: CatalogDetailJson }) {
-  if (catalog.rejectedCount === 0) {
-    return <p className="text-sm text-ok">Every data row was read; none was rejected.</p>;
-  }
-  const shown = catalog.rejected.length;
+  const summary = describeParseReport(catalog);
   return (
     <div className="space-y-2">
-      <p className="text-sm" data-testid="rejected-summary">
-        {formatCount(catalog.rejectedCount)} row{catalog.rejectedCount === 1 ? ' was' : 's were'}{' '}
-        rejected
-        {catalog.policy === 'reject-file'
-          ? ', so the file was not kept.'
-          : ' and left out of the catalog.'}
-        {shown < catalog.rejectedCount &&
-          ` The first ${formatCount(shown)} are listed; download the CSV of the file to see the rest in context.`}
+      <p className={`text-sm ${TONE_CLASS[summary.tone]}`} data-testid="rejected-summary">
+        {summary.text}
       </p>
-      <div className="max-h-80 overflow-auto rounded-md border border-rule bg-white">
-        <table className="w-full text-sm" aria-label="Rejected rows">
-          <thead className="sticky top-0 bg-paper-deep text-left text-xs text-ink-soft">
-            <tr>
-              <th className="w-20 px-2 py-1.5 text-right font-medium">line</th>
-              <th className="px-2 py-1.5 font-medium">reason</th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-rule/60">
-            {catalog.rejected.map((r) => (
-              <tr key={r.line}>
-                <td className="num px-2 py-1">{r.line}</td>
-                <td className="px-2 py-1">{r.reason}</td>
+      {catalog.rejected.length > 0 && (
+        <div className="max-h-80 overflow-auto rounded-md border border-rule bg-white">
+          <table className="w-full text-sm" aria-label="Rejected rows">
+            <thead className="sticky top-0 bg-paper-deep text-left text-xs text-ink-soft">
+              <tr>
+                <th className="w-20 px-2 py-1.5 text-right font-medium">line</th>
+                <th className="px-2 py-1.5 font-medium">reason</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+            </thead>
+            <tbody className="divide-y divide-rule/60">
+              {catalog.rejected.map((r) => (
+                <tr key={r.line}>
+                  <td className="num px-2 py-1">{r.line}</td>
+                  <td className="px-2 py-1">{r.reason}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
     </div>
   );
 }
@@ -267,8 +267,8 @@ export function CatalogDetail({
         {c.status === 'failed' && (
           <div className="mt-4">
             <ErrorNote>
-              Reading failed: {c.error ?? 'no reason was recorded'}. Nothing of this file was kept;
-              fix the file or the mapping and upload it again.
+              Reading failed: {asSentence(c.error ?? 'no reason was recorded')} Nothing of this file
+              was kept; fix the file or the mapping and upload it again.
             </ErrorNote>
           </div>
         )}
@@ -295,7 +295,18 @@ export function CatalogDetail({
           </dl>
           <p className="mt-3 text-xs text-ink-soft">
             Bad rows: {c.policy === 'reject-file' ? 'reject the whole file' : 'skip and report'}.
+            Decimal commas: {c.decimalComma ? 'read (30,1 as 30.1)' : 'not read'}.
           </p>
+          {c.assumptions.length > 0 && (
+            <div className="mt-3 text-sm" data-testid="catalog-assumptions">
+              <p className="font-medium">Assumptions made when reading</p>
+              <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-soft">
+                {c.assumptions.map((a) => (
+                  <li key={a}>{a}</li>
+                ))}
+              </ul>
+            </div>
+          )}
         </Panel>
         <Panel title="Parse report">
           {isFinal(c.status) ? (

@@ -60,7 +60,7 @@ export function TablePager<T>({
           ))}
         </select>
       </label>
-      <span className="ml-auto flex items-center gap-1.5">
+      <span className="ml-auto flex flex-wrap items-center gap-1.5">
         {step('First', () => table.firstPage(), table.getCanPreviousPage())}
         {step('Previous', () => table.previousPage(), table.getCanPreviousPage())}
         {loading ? (

@@ -27,20 +27,33 @@ export function ensureNpmPackages() {
   execFileSync('npm', args, { cwd: root, stdio: 'inherit' });
 }
 
-/** Debian's Chromium for the end-to-end tests (installed as root with apt-get when missing). */
+/**
+ * Debian packages the tests use, each known by a file it installs: Chromium for the end-to-end
+ * tests, and python3-astropy, the independent VOTable reader of the export tests (called as
+ * /usr/bin/python3: a python3 earlier on PATH may not be Debian's).
+ */
+const TEST_PACKAGES = {
+  chromium: '/usr/bin/chromium',
+  'python3-astropy': '/usr/lib/python3/dist-packages/astropy/io/votable/__init__.py',
+};
+
+/** Installs the missing test packages (as root with apt-get); returns Chromium's path. */
 export function ensureChromium() {
-  if (fs.existsSync('/usr/bin/chromium')) return '/usr/bin/chromium';
+  const missing = Object.keys(TEST_PACKAGES).filter((p) => !fs.existsSync(TEST_PACKAGES[p]));
+  if (!missing.length) return TEST_PACKAGES.chromium;
   if (process.getuid?.() !== 0) {
-    throw new Error('Chromium is missing: install it with sudo apt-get install -y chromium');
+    throw new Error(
+      `Test packages are missing: install them with sudo apt-get install -y ${missing.join(' ')}`,
+    );
   }
-  console.log('[setup] installing chromium with apt-get …');
+  console.log(`[setup] installing ${missing.join(', ')} with apt-get …`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   execFileSync('apt-get', ['update'], { stdio: 'inherit', env });
-  execFileSync('apt-get', ['install', '-y', '--no-install-recommends', 'chromium'], {
+  execFileSync('apt-get', ['install', '-y', '--no-install-recommends', ...missing], {
     stdio: 'inherit',
     env,
   });
-  return '/usr/bin/chromium';
+  return TEST_PACKAGES.chromium;
 }
 
 /** Local secrets, generated on first start and kept (git-ignored) with the profile's data. */

@@ -1,4 +1,6 @@
 import { csvLine } from '@/lib/export/csv';
+import { formatDecimals } from '@/lib/export/decimals';
+import { EXPORT_DECIMALS } from '@/lib/export/precision';
 import { HttpError } from '@/lib/http/errors';
 import type { OrderingResult } from '@/lib/ordering';
 import { armsOf } from '@/lib/analysis-settings';
@@ -17,7 +19,12 @@ async function doneResult(analysisId: string) {
   return { a, result: a.result as unknown as OrderingResult };
 }
 
-const ci = (c: [number, number] | null) => (c ? [c[0], c[1]] : [null, null]);
+// Numbers are written to the decimals of their quantity (docs/methods.md, "Exports").
+const D = EXPORT_DECIMALS;
+const r = (x: number | null | undefined, decimals: number) =>
+  x === null || x === undefined ? null : formatDecimals(x, decimals);
+const ci = (c: [number, number] | null, decimals: number) =>
+  c ? [r(c[0], decimals), r(c[1], decimals)] : [null, null];
 
 /** One of the analysis tables as CSV text. */
 export async function analysisCsv(
@@ -45,10 +52,10 @@ export async function analysisCsv(
           c.kind,
           c.n,
           c.nComplexes,
-          c.medianOffsetKpc,
-          ...ci(c.ci95),
-          c.medianAzimuthOffsetDeg,
-          ...ci(c.azimuthCi95),
+          r(c.medianOffsetKpc, D.lengthKpc),
+          ...ci(c.ci95, D.lengthKpc),
+          r(c.medianAzimuthOffsetDeg, D.angleDeg),
+          ...ci(c.azimuthCi95, D.angleDeg),
         ]),
       );
     return [
@@ -60,7 +67,15 @@ export async function analysisCsv(
   if (table === 'sources') {
     return [
       csvLine(['complex_id', 'kind', 'x_kpc', 'y_kpc', 'perp_offset_kpc']),
-      ...result.sources.map((s) => csvLine([s.complexId, s.kind, s.xKpc, s.yKpc, s.perpOffsetKpc])),
+      ...result.sources.map((s) =>
+        csvLine([
+          s.complexId,
+          s.kind,
+          r(s.xKpc, D.lengthKpc),
+          r(s.yKpc, D.lengthKpc),
+          r(s.perpOffsetKpc, D.lengthKpc),
+        ]),
+      ),
     ].join('');
   }
   const head = [
@@ -96,27 +111,27 @@ export async function analysisCsv(
     ...result.complexes.map((c) =>
       csvLine([
         c.id,
-        c.lDeg,
-        c.bDeg,
-        c.vLsrKms,
-        c.distKpc,
-        c.distLoKpc,
-        c.distHiKpc,
-        ...ci(c.distCi95),
-        c.pNear,
+        r(c.lDeg, D.positionDeg),
+        r(c.bDeg, D.positionDeg),
+        r(c.vLsrKms, D.velocityKms),
+        r(c.distKpc, D.lengthKpc),
+        r(c.distLoKpc, D.lengthKpc),
+        r(c.distHiKpc, D.lengthKpc),
+        ...ci(c.distCi95, D.lengthKpc),
+        r(c.pNear, D.fraction),
         c.choice,
         c.reason,
         c.flags.join(' '),
-        c.xKpc,
-        c.yKpc,
-        c.RKpc,
-        c.betaDeg,
+        r(c.xKpc, D.lengthKpc),
+        r(c.yKpc, D.lengthKpc),
+        r(c.RKpc, D.lengthKpc),
+        r(c.betaDeg, D.angleDeg),
         c.arm,
-        c.onArmShare,
-        c.perpOffsetKpc,
-        ...ci(c.perpCi95),
-        c.azimuthOffsetDeg,
-        c.intraAcrossKpc,
+        r(c.onArmShare, D.fraction),
+        r(c.perpOffsetKpc, D.lengthKpc),
+        ...ci(c.perpCi95, D.lengthKpc),
+        r(c.azimuthOffsetDeg, D.angleDeg),
+        r(c.intraAcrossKpc, D.lengthKpc),
         c.used,
         c.excludedBecause,
       ]),

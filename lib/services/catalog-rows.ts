@@ -5,6 +5,8 @@ import { pool } from '@/db/client';
 import { withStatementTimeout, type LimitedDb } from '@/db/statement-timeout';
 import { HttpError } from '@/lib/http/errors';
 import { csvLine } from '@/lib/export/csv';
+import { formatDecimals } from '@/lib/export/decimals';
+import { EXPORT_DECIMALS } from '@/lib/export/precision';
 import type { RowDataPacket } from 'mysql2';
 import { optionalQueryNumber, queryPaging } from '@/lib/schemas/query';
 import { catalogState, pointsPath } from './catalogs';
@@ -153,11 +155,26 @@ const EXPORT_CHUNK = 5000;
  */
 export async function catalogCsv(catalogId: string): Promise<AsyncGenerator<string>> {
   const c = await assertReady(catalogId);
-  return catalogCsvLines(catalogId, c.columns ?? []);
+  const [[named]] = await pool().query<RowDataPacket[]>('SELECT name FROM catalogs WHERE id = ?', [
+    catalogId,
+  ]);
+  return catalogCsvLines(catalogId, String(named.name), c.columns ?? []);
 }
 
-/** Original columns follow the canonical ones, prefixed `orig_`. */
-async function* catalogCsvLines(catalogId: string, columns: string[]): AsyncGenerator<string> {
+const D = EXPORT_DECIMALS;
+/** Decimal places of each canonical double (docs/methods.md, "Exports"). */
+const rounded = (x: unknown, decimals: number) =>
+  x === null || x === undefined ? null : formatDecimals(Number(x), decimals);
+
+/**
+ * The catalog's name follows the canonical columns, then the original columns, prefixed
+ * `orig_`, exactly as uploaded.
+ */
+async function* catalogCsvLines(
+  catalogId: string,
+  catalogName: string,
+  columns: string[],
+): AsyncGenerator<string> {
   const original = columns.map((n) => `orig_${n}`);
   yield csvLine([
     'row',
@@ -172,6 +189,7 @@ async function* catalogCsvLines(catalogId: string, columns: string[]): AsyncGene
     'line_width_sigma_kms',
     'dist_kpc',
     'dist_err_kpc',
+    'catalog_name',
     ...original,
   ]);
   let after = 0;
@@ -190,15 +208,16 @@ async function* catalogCsvLines(catalogId: string, columns: string[]): AsyncGene
         r.row,
         r.line,
         r.name,
-        r.l,
-        r.b,
-        r.v,
-        r.radius_arcsec,
-        r.pos_err_arcsec,
-        r.v_err_kms,
-        r.line_width_kms,
-        r.dist_kpc,
-        r.dist_err_kpc,
+        rounded(r.l, D.positionDeg),
+        rounded(r.b, D.positionDeg),
+        rounded(r.v, D.velocityKms),
+        rounded(r.radius_arcsec, D.angleArcsec),
+        rounded(r.pos_err_arcsec, D.angleArcsec),
+        rounded(r.v_err_kms, D.velocityKms),
+        rounded(r.line_width_kms, D.velocityKms),
+        rounded(r.dist_kpc, D.lengthKpc),
+        rounded(r.dist_err_kpc, D.lengthKpc),
+        catalogName,
         ...(orig ?? []),
       ]);
     }

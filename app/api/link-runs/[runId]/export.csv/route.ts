@@ -1,16 +1,16 @@
-import { z } from 'zod';
 import { requireProjectRole } from '@/lib/auth/access';
 import { route } from '@/lib/http/handler';
+import { runExportQuerySchema } from '@/lib/export/query';
 import { textToByteStream } from '@/lib/export/stream';
 import { runProject } from '@/lib/services/link-runs';
 import { runCsv } from '@/lib/services/run-exports';
 
-const shapeSchema = z.object({ shape: z.enum(['links', 'complexes', 'sources']).default('links') });
-
 export const GET = route<{ runId: string }>(async (req, { runId }) => {
-  const { shape } = shapeSchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   await requireProjectRole(await runProject(runId), 'viewer', req);
-  const pieces = runCsv(runId, shape);
+  const { shape, columns } = runExportQuerySchema.parse(
+    Object.fromEntries(new URL(req.url).searchParams),
+  );
+  const pieces = runCsv(runId, shape, { originalColumns: columns === 'original' });
   // Pull the header now so a run that is not done answers 409 instead of a broken download.
   const first = await pieces.next();
   async function* all() {
@@ -20,7 +20,7 @@ export const GET = route<{ runId: string }>(async (req, { runId }) => {
   return new Response(textToByteStream(all()), {
     headers: {
       'content-type': 'text/csv; charset=utf-8',
-      'content-disposition': `attachment; filename="link-run-${runId.slice(0, 8)}-${shape}.csv"`,
+      'content-disposition': `attachment; filename="link-run-${runId.slice(0, 8)}-${shape}${columns === 'original' ? '-joined' : ''}.csv"`,
     },
   });
 });

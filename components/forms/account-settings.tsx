@@ -7,6 +7,7 @@ import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNote, Panel } from '@/components/ui/panel';
+import { formatDate, formatDateTime } from '@/lib/format/dates';
 
 type Token = {
   id: string;
@@ -91,8 +92,8 @@ export function AccountSettings({ notifyRunEmails }: { notifyRunEmails: boolean 
               <span>
                 <b>{t.name}</b> <code className="font-mono text-ink-soft">{t.prefix}…</code>{' '}
                 <span className="text-ink-soft">
-                  created {new Date(t.createdAt).toLocaleDateString()}
-                  {t.lastUsedAt ? `, last used ${new Date(t.lastUsedAt).toLocaleString()}` : ''}
+                  created {formatDate(t.createdAt)}
+                  {t.lastUsedAt ? `, last used ${formatDateTime(t.lastUsedAt)}` : ''}
                 </span>
               </span>
               <Button variant="quiet" onClick={() => revoke.mutate(t.id)}>

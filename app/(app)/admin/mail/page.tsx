@@ -2,6 +2,7 @@ import { notFound } from 'next/navigation';
 import { EmptyState, PageHeader } from '@/components/ui/panel';
 import { pageUser } from '@/lib/auth/page-user';
 import { env } from '@/lib/env';
+import { formatDateTime } from '@/lib/format/dates';
 import { listCaughtMail } from '@/lib/services/mailbox';
 
 export const metadata = { title: 'Sent mail' };
@@ -26,7 +27,7 @@ export default async function SentMailPage() {
             <li key={m.id} className="rounded-lg border border-rule bg-white/70 p-4 text-sm">
               <p className="font-medium">{m.subject}</p>
               <p className="text-xs text-ink-soft">
-                to {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}
+                to {m.to.join(', ')} · {formatDateTime(m.receivedAt)}
               </p>
               <pre className="mt-2 whitespace-pre-wrap font-mono text-xs">{m.text}</pre>
             </li>

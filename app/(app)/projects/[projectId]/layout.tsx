@@ -20,7 +20,7 @@ export default async function ProjectLayout({
         projectName={project.name}
         target={projectTarget(project.settings)}
       />
-      <main className="min-w-0 flex-1 px-8 py-7">{children}</main>
+      <main className="min-w-0 flex-1 px-4 py-5 sm:px-8 sm:py-7">{children}</main>
     </>
   );
 }

@@ -218,6 +218,8 @@ export const catalogs = mysqlTable(
     createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
     readyAt: timestamp('ready_at', { fsp: 3 }),
+    /** Hidden from lists and new runs, rows kept for the runs and analyses that use it. */
+    archivedAt: timestamp('archived_at', { fsp: 3 }),
   },
   (t) => [index('catalogs_project').on(t.projectId, t.createdAt)],
 );
@@ -260,6 +262,8 @@ export const linkRuns = mysqlTable(
     createdAt: createdAt(),
     startedAt: timestamp('started_at', { fsp: 3 }),
     finishedAt: timestamp('finished_at', { fsp: 3 }),
+    note: text('note'),
+    archivedAt: timestamp('archived_at', { fsp: 3 }),
   },
   (t) => [index('link_runs_project').on(t.projectId, t.createdAt)],
 );
@@ -369,6 +373,10 @@ export const analyses = mysqlTable(
     createdBy: id('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
     finishedAt: timestamp('finished_at', { fsp: 3 }),
+    /** Set by the user; lists fall back to the run's name and the settings. */
+    name: varchar('name', { length: 200 }),
+    note: text('note'),
+    archivedAt: timestamp('archived_at', { fsp: 3 }),
   },
   (t) => [index('analyses_project').on(t.projectId, t.createdAt)],
 );

@@ -14,7 +14,9 @@ import { TextField } from '@/components/ui/field';
 import { EmptyState, ErrorNote, Panel, ProgressBar } from '@/components/ui/panel';
 import { TracerBadge } from '@/components/ui/tracer-badge';
 import { api } from '@/lib/api-client';
-import { externalAnalysisSchema } from '@/lib/schemas/analyses';
+import { externalAnalysisSchema, type AnalysisLifecycleJson } from '@/lib/schemas/analyses';
+import { RecordActions } from '@/components/link-runs/record-actions';
+import { ShowArchived } from '@/components/tables/catalog-list';
 import type { ExternalTarget } from './target';
 import { ExternalView } from './external-view';
 import type { ExternalAnalysisListItem } from './types';
@@ -179,14 +181,23 @@ function RunForm({ projectId, catalogs }: { projectId: string; catalogs: Catalog
   );
 }
 
+type ListedExternal = ExternalAnalysisListItem &
+  AnalysisLifecycleJson & { runName: string | null; catalogIds: string[] | null };
+
 function AnalysisList({
   items,
   projectId,
   selected,
+  canEdit,
+  onChanged,
+  onDeleted,
 }: {
-  items: ExternalAnalysisListItem[];
+  items: ListedExternal[];
   projectId: string;
   selected: string | null;
+  canEdit: boolean;
+  onChanged: () => void;
+  onDeleted: (id: string) => void;
 }) {
   if (items.length === 0)
     return (
@@ -199,6 +210,7 @@ function AnalysisList({
       <table className="w-full text-sm" aria-label="External-galaxy analyses">
         <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
           <tr>
+            <th className="px-3 py-2">Analysis</th>
             <th className="px-3 py-2">Started</th>
             <th className="px-3 py-2">Status</th>
             <th className="px-3 py-2 text-right">m</th>
@@ -215,6 +227,20 @@ function AnalysisList({
               key={a.id}
               className={a.id === selected ? 'bg-accent-soft/40' : 'hover:bg-paper-deep/40'}
             >
+              <td className="px-3 py-2">
+                <span className="font-medium">{a.name}</span>
+                {a.archivedAt && <span className="ml-1.5 text-xs text-ink-soft">archived</span>}
+                <span className="block text-xs text-ink-soft">
+                  {a.runName
+                    ? `members of run ${a.runName}`
+                    : `${a.catalogIds?.length ?? 0} catalogs`}
+                </span>
+                {a.note && (
+                  <span className="block max-w-xs truncate text-xs" title={a.note}>
+                    {a.note}
+                  </span>
+                )}
+              </td>
               <td className="px-3 py-2 text-xs">{fmtWhen(a.createdAt)}</td>
               <td className="px-3 py-2">
                 <span className="flex items-center gap-2">
@@ -238,6 +264,20 @@ function AnalysisList({
                   >
                     Open
                   </Link>
+                )}
+                {canEdit && isFinalAnalysis(a.status) && (
+                  <span className="mt-1 flex flex-wrap gap-1">
+                    <RecordActions
+                      what="analysis"
+                      url={`/api/analyses/${a.id}`}
+                      name={a.customName ?? ''}
+                      note={a.note}
+                      archived={a.archivedAt !== null}
+                      nameOptional
+                      onChanged={onChanged}
+                      onDeleted={() => onDeleted(a.id)}
+                    />
+                  </span>
                 )}
               </td>
             </tr>
@@ -268,10 +308,15 @@ export function ExternalWorkspace({
     queryKey: ['catalogs', projectId],
     queryFn: () => api<{ catalogs: CatalogJson[] }>(`/api/projects/${projectId}/catalogs`),
   });
+  const router = useRouter();
+  const qc = useQueryClient();
+  const [showArchived, setShowArchived] = useState(false);
   const analyses = useQuery({
-    queryKey: analysesKey(projectId),
+    queryKey: showArchived ? [...analysesKey(projectId), 'with-archived'] : analysesKey(projectId),
     queryFn: () =>
-      api<{ analyses: ExternalAnalysisListItem[] }>(`/api/projects/${projectId}/analyses`),
+      api<{ analyses: ListedExternal[] }>(
+        `/api/projects/${projectId}/analyses${showArchived ? '?archived=include' : ''}`,
+      ),
     refetchInterval: (q) =>
       q.state.data?.analyses.some((a) => !isFinalAnalysis(a.status)) ? ANALYSIS_POLL_MS : false,
   });
@@ -296,7 +341,21 @@ export function ExternalWorkspace({
           ) : analyses.isPending ? (
             <p className="text-sm text-ink-soft">Loading analyses…</p>
           ) : (
-            <AnalysisList items={items} projectId={projectId} selected={analysisId} />
+            <>
+              <ShowArchived checked={showArchived} onChange={setShowArchived} />
+              <AnalysisList
+                items={items}
+                projectId={projectId}
+                selected={analysisId}
+                canEdit={canEdit}
+                onChanged={() => void qc.invalidateQueries({ queryKey: analysesKey(projectId) })}
+                onDeleted={(id) => {
+                  void qc.invalidateQueries({ queryKey: analysesKey(projectId) });
+                  if (id === analysisId)
+                    router.replace(`/projects/${projectId}/arms`, { scroll: false });
+                }}
+              />
+            </>
           )}
         </Panel>
       </div>

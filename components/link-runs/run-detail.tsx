@@ -2,8 +2,10 @@
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import Link from 'next/link';
+import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
+import type { RunLifecycleJson } from '@/lib/schemas/link-runs';
 import { ComplexesTable } from '@/components/tables/complexes-table';
 import { Button } from '@/components/ui/button';
 import { ErrorNote, PageHeader, Panel } from '@/components/ui/panel';
@@ -20,6 +22,7 @@ import {
 } from './format';
 import { RunCompare } from './run-compare';
 import { RunExports } from './run-exports';
+import { RecordActions } from './record-actions';
 import { runsKey } from './run-list';
 import { RunStatusCell } from './run-status';
 import { RunSummaryView } from './run-summary';
@@ -29,7 +32,7 @@ import type { Run } from './types';
 export function useRun(runId: string) {
   return useQuery({
     queryKey: ['link-run', runId],
-    queryFn: () => api<{ run: Run }>(`/api/link-runs/${runId}`),
+    queryFn: () => api<{ run: Run & RunLifecycleJson }>(`/api/link-runs/${runId}`),
     refetchInterval: (q) =>
       q.state.data && isFinalRun(q.state.data.run.status) ? false : RUN_POLL_MS,
   });
@@ -95,6 +98,7 @@ export function RunDetail({
   canEdit: boolean;
 }) {
   const qc = useQueryClient();
+  const router = useRouter();
   const { data, error, isPending } = useRun(runId);
   const [actionError, setActionError] = useState<string | null>(null);
   const cancel = useMutation({
@@ -118,7 +122,7 @@ export function RunDetail({
         title={run.name}
         lead="A link run is a fixed record of its parameters; re-running with edits makes a new run."
         actions={
-          <div className="flex items-center gap-2">
+          <div className="flex flex-wrap items-center gap-2">
             <Link href={base} className="text-sm text-ink-soft hover:text-ink">
               All link runs
             </Link>
@@ -130,9 +134,42 @@ export function RunDetail({
                 Re-run with edits
               </Link>
             )}
+            {canEdit && !active && (
+              <RecordActions
+                what="link run"
+                url={`/api/link-runs/${run.id}`}
+                name={run.name}
+                note={run.note}
+                archived={run.archivedAt !== null}
+                cascadeQuery="withAnalyses=1"
+                onChanged={() => {
+                  void qc.invalidateQueries({ queryKey: ['link-run', runId] });
+                  void qc.invalidateQueries({ queryKey: runsKey(projectId) });
+                }}
+                onDeleted={() => {
+                  qc.removeQueries({ queryKey: ['link-run', runId] });
+                  void qc.invalidateQueries({ queryKey: runsKey(projectId) });
+                  router.push(base);
+                }}
+              />
+            )}
           </div>
         }
       />
+      {(run.note || run.archivedAt) && (
+        <div className="-mt-3 space-y-1 text-sm">
+          {run.note && (
+            <p data-testid="run-note" className="max-w-3xl whitespace-pre-line">
+              {run.note}
+            </p>
+          )}
+          {run.archivedAt && (
+            <p className="font-medium text-ink-soft">
+              Archived {fmtWhen(run.archivedAt)}: hidden from the run list and new analyses.
+            </p>
+          )}
+        </div>
+      )}
       <Panel title="Status">
         <div className="flex flex-wrap items-center gap-4">
           <RunStatusCell run={run} />

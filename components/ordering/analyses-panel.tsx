@@ -5,12 +5,14 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { fmt, fmtWhen } from '@/components/link-runs/format';
+import { RecordActions } from '@/components/link-runs/record-actions';
 import { useRuns } from '@/components/link-runs/run-list';
+import { ShowArchived } from '@/components/tables/catalog-list';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { EmptyState, ErrorNote, Panel, ProgressBar } from '@/components/ui/panel';
 import { api } from '@/lib/api-client';
-import { analysisSchema } from '@/lib/schemas/analyses';
+import { analysisSchema, type AnalysisLifecycleJson } from '@/lib/schemas/analyses';
 import { ANALYSIS_POLL_MS } from './analysis-view';
 import type { CheckedSettings } from './settings-model';
 import type { AnalysisListItem, AnalysisRequest } from './types';
@@ -32,11 +34,19 @@ function checkedBody(body: AnalysisRequest): { ok: true } | { ok: false; problem
 /** Query key of a project's analysis list. */
 export const analysesKey = (projectId: string) => ['analyses', projectId];
 
-/** The project's analyses, newest first; fetched again every second while any is unfinished. */
-export function useAnalyses(projectId: string) {
+type ListedAnalysis = AnalysisListItem & AnalysisLifecycleJson;
+
+/**
+ * The project's analyses, newest first (archived ones too when asked); fetched again every
+ * second while any is unfinished.
+ */
+export function useAnalyses(projectId: string, withArchived = false) {
   return useQuery({
-    queryKey: analysesKey(projectId),
-    queryFn: () => api<{ analyses: AnalysisListItem[] }>(`/api/projects/${projectId}/analyses`),
+    queryKey: withArchived ? [...analysesKey(projectId), 'with-archived'] : analysesKey(projectId),
+    queryFn: () =>
+      api<{ analyses: ListedAnalysis[] }>(
+        `/api/projects/${projectId}/analyses${withArchived ? '?archived=include' : ''}`,
+      ),
     refetchInterval: (q) =>
       q.state.data?.analyses.some((a) => !isFinalAnalysis(a.status)) ? ANALYSIS_POLL_MS : false,
   });
@@ -142,90 +152,154 @@ function YoungMinusGasCell({ summary }: { summary: AnalysisListItem['summary'] }
   );
 }
 
-function AnalysisList({ projectId, selected }: { projectId: string; selected: string | null }) {
-  const { data, error, isPending } = useAnalyses(projectId);
+/** The settings that tell two analyses of one run apart, in a line. */
+export function describeAnalysisParams(p: AnalysisListItem['params']): string {
+  const arms = 'preset' in p.arms ? `${p.arms.preset} arms` : `${p.arms.custom.length} custom arms`;
+  return [
+    `${p.curve.name} curve`,
+    arms,
+    `near/far ${p.nearFar}`,
+    `${p.mcDraws} distance draws`,
+    `${p.resamples} resamples`,
+  ].join(' · ');
+}
+
+function AnalysisList({
+  projectId,
+  selected,
+  canEdit,
+}: {
+  projectId: string;
+  selected: string | null;
+  canEdit: boolean;
+}) {
+  const router = useRouter();
+  const qc = useQueryClient();
+  const [showArchived, setShowArchived] = useState(false);
+  const { data, error, isPending } = useAnalyses(projectId, showArchived);
   if (error) return <ErrorNote>Could not load the analyses: {error.message}</ErrorNote>;
   if (isPending) return <p className="text-sm text-ink-soft">Loading analyses…</p>;
+  const refresh = () => void qc.invalidateQueries({ queryKey: analysesKey(projectId) });
+  const toggle = <ShowArchived checked={showArchived} onChange={setShowArchived} />;
   if (data.analyses.length === 0)
     return (
-      <p className="text-sm text-ink-soft">
-        No ordering analysis yet. Each one you start is kept here to reopen.
-      </p>
+      <div>
+        {toggle}
+        <p className="text-sm text-ink-soft">
+          No ordering analysis {showArchived ? '' : 'in the list '}yet. Each one you start is kept
+          here to reopen.
+        </p>
+      </div>
     );
   return (
-    <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
-      <table className="w-full text-sm" aria-label="Ordering analyses">
-        <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th className="px-3 py-2">Link run</th>
-            <th className="px-3 py-2">Status</th>
-            <th className="px-3 py-2 text-right">Young − gas (pc, ahead +) [95 %]</th>
-            <th className="px-3 py-2 text-right">Fitted Ω_p (km/s/kpc)</th>
-            <th className="px-3 py-2 text-right">Fitted t (Myr)</th>
-            <th className="px-3 py-2">Assumed Ω_p</th>
-            <th className="px-3 py-2">Started</th>
-            <th className="px-3 py-2">
-              <span className="sr-only">Open</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-rule/70">
-          {data.analyses.map((a) => (
-            <tr
-              key={a.id}
-              className={a.id === selected ? 'bg-accent-soft/40' : 'hover:bg-paper-deep/40'}
-            >
-              <td className="px-3 py-2">{a.runName}</td>
-              <td className="px-3 py-2">
-                <span className="flex items-center gap-2">
-                  <span
-                    className={
-                      a.status === 'failed'
-                        ? 'font-medium text-danger'
-                        : a.status === 'done'
-                          ? 'text-ok'
-                          : 'text-ink-soft'
-                    }
-                  >
-                    {ANALYSIS_STATUS_WORDS[a.status]}
-                  </span>
-                  {!isFinalAnalysis(a.status) && (
-                    <ProgressBar
-                      value={a.progress}
-                      label={`Progress of the analysis of ${a.runName}`}
-                    />
-                  )}
-                </span>
-              </td>
-              <td className="num px-3 py-2">
-                <YoungMinusGasCell summary={a.summary} />
-              </td>
-              <td className="num px-3 py-2">{fmt(a.summary?.patternSpeedKmsKpc, 1)}</td>
-              <td className="num px-3 py-2">{fmt(a.summary?.timescaleMyr, 1)}</td>
-              <td className="px-3 py-2 text-xs">
-                {a.params.patternSpeed == null
-                  ? 'none'
-                  : `assumed ${fmt(a.params.patternSpeed, 1)} km/s/kpc`}
-              </td>
-              <td className="px-3 py-2 text-xs text-ink-soft">{fmtWhen(a.createdAt)}</td>
-              <td className="px-3 py-2">
-                {a.id === selected ? (
-                  <span className="text-xs text-ink-soft">shown below</span>
-                ) : (
-                  <Link
-                    href={`/projects/${projectId}/arms?analysis=${a.id}#result`}
-                    scroll={false}
-                    className="text-accent hover:underline"
-                    aria-label={`Open the analysis of ${a.runName} started ${fmtWhen(a.createdAt)}`}
-                  >
-                    Open
-                  </Link>
-                )}
-              </td>
+    <div>
+      {toggle}
+      <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
+        <table className="w-full text-sm" aria-label="Ordering analyses">
+          <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+            <tr>
+              <th className="px-3 py-2">Analysis</th>
+              <th className="px-3 py-2">Status</th>
+              <th className="px-3 py-2 text-right">Young − gas (pc, ahead +) [95 %]</th>
+              <th className="px-3 py-2 text-right">Fitted Ω_p (km/s/kpc)</th>
+              <th className="px-3 py-2 text-right">Fitted t (Myr)</th>
+              <th className="px-3 py-2">Assumed Ω_p</th>
+              <th className="px-3 py-2">Started</th>
+              <th className="px-3 py-2">
+                <span className="sr-only">Open</span>
+              </th>
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody className="divide-y divide-rule/70">
+            {data.analyses.map((a) => (
+              <tr
+                key={a.id}
+                className={a.id === selected ? 'bg-accent-soft/40' : 'hover:bg-paper-deep/40'}
+              >
+                <td className="px-3 py-2">
+                  <span className="font-medium">{a.name}</span>
+                  {a.archivedAt && <span className="ml-1.5 text-xs text-ink-soft">archived</span>}
+                  {a.customName && (
+                    <span className="block text-xs text-ink-soft">run {a.runName}</span>
+                  )}
+                  <span className="block text-xs text-ink-soft">
+                    {describeAnalysisParams(a.params)}
+                  </span>
+                  {a.note && (
+                    <span className="block max-w-xs truncate text-xs" title={a.note}>
+                      {a.note}
+                    </span>
+                  )}
+                </td>
+                <td className="px-3 py-2">
+                  <span className="flex items-center gap-2">
+                    <span
+                      className={
+                        a.status === 'failed'
+                          ? 'font-medium text-danger'
+                          : a.status === 'done'
+                            ? 'text-ok'
+                            : 'text-ink-soft'
+                      }
+                    >
+                      {ANALYSIS_STATUS_WORDS[a.status]}
+                    </span>
+                    {!isFinalAnalysis(a.status) && (
+                      <ProgressBar
+                        value={a.progress}
+                        label={`Progress of the analysis of ${a.runName}`}
+                      />
+                    )}
+                  </span>
+                </td>
+                <td className="num px-3 py-2">
+                  <YoungMinusGasCell summary={a.summary} />
+                </td>
+                <td className="num px-3 py-2">{fmt(a.summary?.patternSpeedKmsKpc, 1)}</td>
+                <td className="num px-3 py-2">{fmt(a.summary?.timescaleMyr, 1)}</td>
+                <td className="px-3 py-2 text-xs">
+                  {a.params.patternSpeed == null
+                    ? 'none'
+                    : `assumed ${fmt(a.params.patternSpeed, 1)} km/s/kpc`}
+                </td>
+                <td className="px-3 py-2 text-xs text-ink-soft">{fmtWhen(a.createdAt)}</td>
+                <td className="px-3 py-2">
+                  {a.id === selected ? (
+                    <span className="text-xs text-ink-soft">shown below</span>
+                  ) : (
+                    <Link
+                      href={`/projects/${projectId}/arms?analysis=${a.id}#result`}
+                      scroll={false}
+                      className="text-accent hover:underline"
+                      aria-label={`Open the analysis of ${a.runName} started ${fmtWhen(a.createdAt)}`}
+                    >
+                      Open
+                    </Link>
+                  )}
+                  {canEdit && isFinalAnalysis(a.status) && (
+                    <span className="mt-1 flex flex-wrap gap-1">
+                      <RecordActions
+                        what="analysis"
+                        url={`/api/analyses/${a.id}`}
+                        name={a.customName ?? ''}
+                        note={a.note}
+                        archived={a.archivedAt !== null}
+                        nameOptional
+                        onChanged={refresh}
+                        onDeleted={() => {
+                          refresh();
+                          if (a.id === selected)
+                            router.replace(`/projects/${projectId}/arms`, { scroll: false });
+                        }}
+                      />
+                    </span>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </div>
   );
 }
@@ -250,7 +324,7 @@ export function AnalysesPanel({
         </Panel>
       )}
       <Panel title="Analyses">
-        <AnalysisList projectId={projectId} selected={selected} />
+        <AnalysisList projectId={projectId} selected={selected} canEdit={canEdit} />
       </Panel>
     </div>
   );

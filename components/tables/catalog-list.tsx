@@ -1,6 +1,7 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import Link from 'next/link';
 import { api } from '@/lib/api-client';
 import { EmptyState, ErrorNote, ProgressBar } from '@/components/ui/panel';
@@ -25,6 +26,7 @@ export interface CatalogJson {
   policy: string;
   createdAt: string;
   readyAt: string | null;
+  archivedAt: string | null;
   createdBy: { id: string; name: string } | null;
 }
 
@@ -80,17 +82,38 @@ export function formatBytes(n: number): string {
   return `${x.toFixed(x < 10 ? 1 : 0)} ${units[i]}`;
 }
 
+/** "Show archived": a list's toggle for the records it leaves out by default. */
+export function ShowArchived({
+  checked,
+  onChange,
+}: {
+  checked: boolean;
+  onChange: (checked: boolean) => void;
+}) {
+  return (
+    <label className="mb-2 flex items-center gap-2 text-sm text-ink-soft">
+      <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} />
+      Show archived
+    </label>
+  );
+}
+
 /** Every catalog of a project, newest first, refreshed every second while any is being read. */
 export function CatalogList({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
+  const [showArchived, setShowArchived] = useState(false);
   const { data, error, isPending } = useQuery({
-    queryKey: ['catalogs', projectId],
-    queryFn: () => api<{ catalogs: CatalogJson[] }>(`/api/projects/${projectId}/catalogs`),
+    queryKey: ['catalogs', projectId, { showArchived }],
+    queryFn: () =>
+      api<{ catalogs: CatalogJson[] }>(
+        `/api/projects/${projectId}/catalogs${showArchived ? '?archived=include' : ''}`,
+      ),
     refetchInterval: (q) =>
       q.state.data?.catalogs.some((c) => !isFinal(c.status)) ? POLL_MS : false,
   });
+  const toggle = <ShowArchived checked={showArchived} onChange={setShowArchived} />;
   if (error) return <ErrorNote>Could not load the catalogs: {error.message}</ErrorNote>;
   if (isPending) return <p className="text-sm text-ink-soft">Loading catalogs…</p>;
-  if (data.catalogs.length === 0) {
+  if (data.catalogs.length === 0 && !showArchived) {
     return (
       <EmptyState title="No catalogs yet">
         {canEdit ? (
@@ -106,49 +129,57 @@ export function CatalogList({ projectId, canEdit }: { projectId: string; canEdit
     );
   }
   return (
-    <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
-      <table className="w-full text-sm" aria-label="Catalogs">
-        <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th className="px-3 py-2">Name</th>
-            <th className="px-3 py-2">Class</th>
-            <th className="px-3 py-2">Status</th>
-            <th className="px-3 py-2 text-right">Rows</th>
-            <th className="px-3 py-2 text-right">Rejected</th>
-            <th className="px-3 py-2">Uploaded by</th>
-            <th className="px-3 py-2">Uploaded</th>
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-rule">
-          {data.catalogs.map((c) => (
-            <tr key={c.id} className="hover:bg-paper-deep/40">
-              <td className="px-3 py-2">
-                <Link
-                  href={`/projects/${projectId}/catalogs/${c.id}`}
-                  className="font-medium text-accent hover:underline"
-                >
-                  {c.name}
-                </Link>
-                <span className="block text-xs text-ink-soft">{c.fileName}</span>
-              </td>
-              <td className="px-3 py-2">
-                <TracerBadge kind={c.kind} />
-              </td>
-              <td className="px-3 py-2">
-                <CatalogStatusCell catalog={c} />
-              </td>
-              <td className="num px-3 py-2">{isFinal(c.status) ? formatCount(c.rowCount) : '—'}</td>
-              <td className={`num px-3 py-2 ${c.rejectedCount > 0 ? 'text-danger' : ''}`}>
-                {isFinal(c.status) ? formatCount(c.rejectedCount) : '—'}
-              </td>
-              <td className="px-3 py-2">{c.createdBy?.name ?? 'a former member'}</td>
-              <td className="px-3 py-2 whitespace-nowrap">
-                <time dateTime={c.createdAt}>{new Date(c.createdAt).toLocaleString()}</time>
-              </td>
+    <div>
+      {toggle}
+      <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
+        <table className="w-full text-sm" aria-label="Catalogs">
+          <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+            <tr>
+              <th className="px-3 py-2">Name</th>
+              <th className="px-3 py-2">Class</th>
+              <th className="px-3 py-2">Status</th>
+              <th className="px-3 py-2 text-right">Rows</th>
+              <th className="px-3 py-2 text-right">Rejected</th>
+              <th className="px-3 py-2">Uploaded by</th>
+              <th className="px-3 py-2">Uploaded</th>
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody className="divide-y divide-rule">
+            {data.catalogs.map((c) => (
+              <tr key={c.id} className="hover:bg-paper-deep/40">
+                <td className="px-3 py-2">
+                  <Link
+                    href={`/projects/${projectId}/catalogs/${c.id}`}
+                    className="font-medium text-accent hover:underline"
+                  >
+                    {c.name}
+                  </Link>
+                  <span className="block text-xs text-ink-soft">
+                    {c.fileName}
+                    {c.archivedAt && ' · archived'}
+                  </span>
+                </td>
+                <td className="px-3 py-2">
+                  <TracerBadge kind={c.kind} />
+                </td>
+                <td className="px-3 py-2">
+                  <CatalogStatusCell catalog={c} />
+                </td>
+                <td className="num px-3 py-2">
+                  {isFinal(c.status) ? formatCount(c.rowCount) : '—'}
+                </td>
+                <td className={`num px-3 py-2 ${c.rejectedCount > 0 ? 'text-danger' : ''}`}>
+                  {isFinal(c.status) ? formatCount(c.rejectedCount) : '—'}
+                </td>
+                <td className="px-3 py-2">{c.createdBy?.name ?? 'a former member'}</td>
+                <td className="px-3 py-2 whitespace-nowrap">
+                  <time dateTime={c.createdAt}>{new Date(c.createdAt).toLocaleString()}</time>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </div>
   );
 }

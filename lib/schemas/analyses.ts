@@ -154,3 +154,22 @@ export type ComplexAnalysisJson = {
   perpOffsetKpc: number | null;
   used: boolean;
 };
+
+/** `PATCH /api/analyses/{id}`: rename, describe, archive or restore; at least one field. */
+export const analysisPatchSchema = z
+  .object({
+    name: z.string().trim().min(1, 'Give the analysis a name.').max(200).nullable().optional(),
+    note: z.string().max(4000).nullable().optional(),
+    archived: z.boolean().optional(),
+  })
+  .strict()
+  .refine((p) => Object.keys(p).length > 0, 'Give name, note or archived.');
+export type AnalysisPatch = z.infer<typeof analysisPatchSchema>;
+
+/** What an analysis carries for its lifecycle: `name` falls back to what it was run on. */
+export type AnalysisLifecycleJson = {
+  name: string;
+  customName: string | null;
+  note: string | null;
+  archivedAt: string | null;
+};

@@ -1,6 +1,28 @@
 /** Request schemas of the catalog API shared by the route handlers and the pages. */
 import { z } from 'zod';
 
+/** Which records a list returns: archived ones are left out unless asked for. */
+export const archivedFilterSchema = z.enum(['exclude', 'include', 'only']).default('exclude');
+export type ArchivedFilter = z.infer<typeof archivedFilterSchema>;
+
+/** The `archived` query parameter of a project's catalog, run and analysis lists. */
+export const archivedFilterFromUrl = (url: string): ArchivedFilter =>
+  archivedFilterSchema.parse(new URL(url).searchParams.get('archived') ?? undefined);
+
+/** `PATCH /api/catalogs/{id}`: archive (or restore) a catalog; its rows are kept either way. */
+export const catalogPatchSchema = z.object({ archived: z.boolean() }).strict();
+
+/** A run or analysis that reads a catalog or a run: what a refused delete lists. */
+export const dependentSchema = z.object({ id: z.string(), name: z.string() });
+export type Dependent = z.infer<typeof dependentSchema>;
+
+/** The `details` of a 409 answer to deleting a catalog that runs or analyses use. */
+export const catalogDependentsSchema = z.object({
+  runs: z.array(dependentSchema),
+  analyses: z.array(dependentSchema),
+});
+export type CatalogDependents = z.infer<typeof catalogDependentsSchema>;
+
 // ---- Upload, preview and parse report ----
 
 /** A multipart checkbox: `true`/`1`/`on` or `false`/`0`/`off`/empty. */

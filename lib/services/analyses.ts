@@ -27,7 +27,9 @@ import { writeAnalysisComplexes } from './analysis-complexes';
 import { rowsTableName } from './catalog-tables';
 import { requireDoneRun } from './link-runs';
 import { orderingSettings } from '@/lib/analysis-settings';
-import { analysisSchema, type AnalysisParams } from '@/lib/schemas/analyses';
+import { analysisSchema, type AnalysisParams, type AnalysisPatch } from '@/lib/schemas/analyses';
+import type { ArchivedFilter } from '@/lib/schemas/catalogs';
+import { analysisLabel, archivedCondition, auditLifecycle } from './record-lifecycle';
 import type { ExternalAnalysisJson } from './external-analyses';
 
 export { analysisSchema, type AnalysisParams } from '@/lib/schemas/analyses';
@@ -193,6 +195,10 @@ function analysisJson(
   return {
     id: a.id,
     kind: a.kind,
+    name: analysisLabel({ name: a.name, kind: a.kind, runName: extra.runName }),
+    customName: a.name,
+    note: a.note,
+    archivedAt: a.archivedAt?.toISOString() ?? null,
     runId: a.runId,
     catalogIds: a.catalogIds ?? null,
     runName: extra.runName,
@@ -208,19 +214,23 @@ function analysisJson(
   };
 }
 
-export async function listAnalyses(projectId: string) {
+export async function listAnalyses(projectId: string, archived: ArchivedFilter = 'exclude') {
   const rows = await db
     .select({ a: analyses, runName: linkRuns.name, creatorName: users.name })
     .from(analyses)
     .leftJoin(linkRuns, eq(linkRuns.id, analyses.runId))
     .leftJoin(users, eq(users.id, analyses.createdBy))
-    .where(eq(analyses.projectId, projectId))
+    .where(and(eq(analyses.projectId, projectId), archivedCondition(analyses.archivedAt, archived)))
     .orderBy(desc(analyses.createdAt));
   return rows.map(({ a, runName, creatorName }) => {
     const full = analysisJson(a, { runName, creatorName });
     return {
       id: full.id,
       kind: full.kind,
+      name: full.name,
+      customName: full.customName,
+      note: full.note,
+      archivedAt: full.archivedAt,
       runId: full.runId,
       catalogIds: full.catalogIds,
       runName: full.runName,
@@ -283,6 +293,55 @@ export async function analysisProject(analysisId: string) {
     .where(eq(analyses.id, analysisId));
   if (!a) throw notFound('Analysis');
   return a.projectId;
+}
+
+/** Renames, describes, archives or restores an analysis; one audit row lists what changed. */
+export async function updateAnalysis(analysisId: string, userId: string, patch: AnalysisPatch) {
+  const [a] = await db.select().from(analyses).where(eq(analyses.id, analysisId));
+  if (!a) throw notFound('Analysis');
+  const set: Partial<typeof analyses.$inferInsert> = {};
+  const changes: Record<string, unknown> = {};
+  if (patch.name !== undefined && (patch.name || null) !== a.name)
+    set.name = changes.name = patch.name || null;
+  if (patch.note !== undefined && (patch.note || null) !== a.note)
+    set.note = changes.note = patch.note || null;
+  if (patch.archived !== undefined && patch.archived !== (a.archivedAt !== null)) {
+    set.archivedAt = patch.archived ? new Date() : null;
+    changes.archived = patch.archived;
+  }
+  if (Object.keys(set).length) {
+    await db.update(analyses).set(set).where(eq(analyses.id, analysisId));
+    await auditLifecycle({
+      projectId: a.projectId,
+      userId,
+      action: 'analysis.update',
+      subject: analysisId,
+      detail: { name: a.name, changes },
+    });
+  }
+  return getAnalysis(analysisId);
+}
+
+/** Deletes a finished analysis with its placements of complexes (by foreign key) and its job. */
+export async function deleteAnalysis(analysisId: string, userId: string) {
+  const a = await getAnalysis(analysisId);
+  if (a.status === 'queued' || a.status === 'running')
+    throw new HttpError(409, 'analysis_active', `The analysis is ${a.status}; wait for it to end.`);
+  const [row] = await db
+    .select({ projectId: analyses.projectId, jobId: analyses.jobId })
+    .from(analyses)
+    .where(eq(analyses.id, analysisId));
+  await db.transaction(async (tx) => {
+    await tx.delete(analyses).where(eq(analyses.id, analysisId));
+    if (row.jobId) await tx.delete(jobs).where(eq(jobs.id, row.jobId));
+  });
+  await auditLifecycle({
+    projectId: row.projectId,
+    userId,
+    action: 'analysis.delete',
+    subject: analysisId,
+    detail: { name: a.name, runId: a.runId },
+  });
 }
 
 export const distanceOverrideSchema = z.object({

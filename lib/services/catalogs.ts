@@ -1,12 +1,14 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '@/db/client';
 import { TRACER_KINDS, catalogRejects, catalogs, jobs, users } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import { conflict, HttpError, notFound } from '@/lib/http/errors';
+import type { ArchivedFilter } from '@/lib/schemas/catalogs';
 import { dropRowsTables } from './catalog-tables';
+import { archivedCondition, auditLifecycle, catalogDependents } from './record-lifecycle';
 import { checkUpload, receiveUpload, uploadDir } from './uploads';
 
 export const kindSchema = z.enum(TRACER_KINDS);
@@ -28,6 +30,7 @@ export type CatalogSummary = {
   policy: 'skip-bad-rows' | 'reject-file';
   createdAt: string;
   readyAt: string | null;
+  archivedAt: string | null;
   createdBy: { id: string; name: string } | null;
 };
 
@@ -103,16 +106,20 @@ function toSummary(r: {
     policy: c.policy,
     createdAt: c.createdAt.toISOString(),
     readyAt: c.readyAt?.toISOString() ?? null,
+    archivedAt: c.archivedAt?.toISOString() ?? null,
     createdBy: c.createdBy ? { id: c.createdBy, name: r.creatorName ?? '' } : null,
   };
 }
 
-export async function listCatalogs(projectId: string): Promise<CatalogSummary[]> {
+export async function listCatalogs(
+  projectId: string,
+  archived: ArchivedFilter = 'exclude',
+): Promise<CatalogSummary[]> {
   const rows = await db
     .select(summaryColumns)
     .from(catalogs)
     .leftJoin(users, eq(users.id, catalogs.createdBy))
-    .where(eq(catalogs.projectId, projectId))
+    .where(and(eq(catalogs.projectId, projectId), archivedCondition(catalogs.archivedAt, archived)))
     .orderBy(desc(catalogs.createdAt));
   return rows.map(toSummary);
 }
@@ -173,18 +180,64 @@ export async function getCatalogDetail(id: string) {
     assumptions: c?.assumptions ?? [],
     dataRowCount: c?.dataRowCount ?? null,
     rejected,
+    // What the delete dialog lists: deleting is refused while any of these read the catalog.
+    usedBy: await catalogDependents(id),
   };
 }
 
-export async function deleteCatalog(id: string): Promise<void> {
+/**
+ * Deletes an unused catalog with its rows and files. One that runs or analyses read is refused
+ * (409 listing them): deleting it would leave their members, links and exports without rows;
+ * archiving keeps them whole.
+ */
+export async function deleteCatalog(id: string, userId: string): Promise<void> {
   const c = await getCatalog(id);
   if (c.status === 'ingesting' || c.status === 'queued') {
     throw conflict('This catalog is still being ingested; wait until it is ready or failed.');
   }
+  const dependents = await catalogDependents(id);
+  if (dependents.runs.length || dependents.analyses.length) {
+    throw new HttpError(
+      409,
+      'catalog_in_use',
+      `${dependents.runs.length} link run(s) and ${dependents.analyses.length} analysis(es) use this catalog; delete them first, or archive the catalog to hide it and keep its rows.`,
+      dependents,
+    );
+  }
   await db.delete(catalogs).where(eq(catalogs.id, id));
+  await auditLifecycle({
+    projectId: c.projectId,
+    userId,
+    action: 'catalog.delete',
+    subject: id,
+    detail: { name: c.name },
+  });
   await dropRowsTables(id);
   fs.rmSync(uploadDir(id), { recursive: true, force: true });
   fs.rmSync(pointsPath(id), { force: true });
+}
+
+/** Archives (hides from lists and new runs) or restores a catalog; its rows stay. */
+export async function setCatalogArchived(
+  id: string,
+  userId: string,
+  archived: boolean,
+): Promise<CatalogSummary> {
+  const c = await getCatalog(id);
+  if (archived !== (c.archivedAt !== null)) {
+    await db
+      .update(catalogs)
+      .set({ archivedAt: archived ? new Date() : null })
+      .where(eq(catalogs.id, id));
+    await auditLifecycle({
+      projectId: c.projectId,
+      userId,
+      action: archived ? 'catalog.archive' : 'catalog.restore',
+      subject: id,
+      detail: { name: c.name },
+    });
+  }
+  return getCatalog(id);
 }
 
 /** Where the plot points of a ready catalog are kept (Float32 l, b, v triples). */

@@ -5,9 +5,12 @@ import { withStatementTimeout } from '@/db/statement-timeout';
 import { catalogs, jobs, linkRuns, projects, users } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
+import type { ArchivedFilter } from '@/lib/schemas/catalogs';
+import type { RunPatch } from '@/lib/schemas/link-runs';
 import { projectTargetSchema } from '@/lib/schemas/analyses';
 import { plainText } from '@/lib/schemas/text';
 import { requestCancel } from './jobs';
+import { archivedCondition, auditLifecycle, purgeRun, runAnalyses } from './record-lifecycle';
 
 /** The link-run body of API.md, with the options a careful user needs made explicit. */
 export const linkRunSchema = z.object({
@@ -51,6 +54,7 @@ export async function runCatalogs(projectId: string, ids: string[]): Promise<Run
       status: catalogs.status,
       rowCount: catalogs.rowCount,
       projectId: catalogs.projectId,
+      archivedAt: catalogs.archivedAt,
     })
     .from(catalogs)
     .where(inArray(catalogs.id, ids));
@@ -67,6 +71,12 @@ export async function runCatalogs(projectId: string, ids: string[]): Promise<Run
         409,
         'catalog_not_ready',
         `catalogIds[${i}]: catalog "${c.name}" is ${c.status}, not ready.`,
+      );
+    if (c.archivedAt)
+      throw new HttpError(
+        409,
+        'catalog_archived',
+        `catalogIds[${i}]: catalog "${c.name}" is archived; restore it to use it in new work.`,
       );
     return { id: c.id, name: c.name, kind: c.kind, rowCount: c.rowCount };
   });
@@ -136,6 +146,8 @@ export type RunJson = {
   id: string;
   projectId: string;
   name: string;
+  note: string | null;
+  archivedAt: string | null;
   status: 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
   progress: number;
   params: Record<string, unknown>;
@@ -212,6 +224,8 @@ function toRunJson({ r, creatorName, jobProgress }: RunRow, ctx: RunContext): Ru
     id: r.id,
     projectId: r.projectId,
     name: r.name,
+    note: r.note,
+    archivedAt: r.archivedAt?.toISOString() ?? null,
     status: r.status,
     progress,
     params: r.params,
@@ -236,13 +250,16 @@ function runSummary(r: typeof linkRuns.$inferSelect, ctx: RunContext): Record<st
 
 const runColumns = { r: linkRuns, creatorName: users.name, jobProgress: jobs.progress };
 
-export async function listRuns(projectId: string): Promise<RunJson[]> {
+export async function listRuns(
+  projectId: string,
+  archived: ArchivedFilter = 'exclude',
+): Promise<RunJson[]> {
   const rows = await db
     .select(runColumns)
     .from(linkRuns)
     .leftJoin(users, eq(users.id, linkRuns.createdBy))
     .leftJoin(jobs, eq(jobs.id, linkRuns.jobId))
-    .where(eq(linkRuns.projectId, projectId))
+    .where(and(eq(linkRuns.projectId, projectId), archivedCondition(linkRuns.archivedAt, archived)))
     .orderBy(desc(linkRuns.createdAt));
   const ctx = await runContext(projectId);
   return rows.map((x) => toRunJson(x, ctx));
@@ -304,6 +321,68 @@ export async function cancelRun(runId: string) {
         .where(eq(linkRuns.id, runId));
     }
   }
+}
+
+/** Renames, describes, archives or restores a run; one audit row lists what changed. */
+export async function updateRun(runId: string, userId: string, patch: RunPatch): Promise<RunJson> {
+  const before = await getRun(runId);
+  const set: Partial<typeof linkRuns.$inferInsert> = {};
+  const changes: Record<string, unknown> = {};
+  if (patch.name !== undefined && patch.name !== before.name) set.name = changes.name = patch.name;
+  if (patch.note !== undefined && (patch.note || null) !== before.note)
+    set.note = changes.note = patch.note || null;
+  if (patch.archived !== undefined && patch.archived !== (before.archivedAt !== null)) {
+    set.archivedAt = patch.archived ? new Date() : null;
+    changes.archived = patch.archived;
+  }
+  if (Object.keys(set).length === 0) return before;
+  await db.update(linkRuns).set(set).where(eq(linkRuns.id, runId));
+  await auditLifecycle({
+    projectId: before.projectId,
+    userId,
+    action: 'link-run.update',
+    subject: runId,
+    detail: { name: before.name, changes },
+  });
+  return getRun(runId);
+}
+
+/**
+ * Deletes a finished run with its links, complexes, members, reviews and distances. Analyses
+ * that read it make this a 409 listing them, unless `withAnalyses` deletes them too; a run or
+ * analysis still working is a 409 as well (cancel it first).
+ */
+export async function deleteRun(runId: string, userId: string, withAnalyses: boolean) {
+  const run = await getRun(runId);
+  if (run.status === 'queued' || run.status === 'running')
+    throw new HttpError(409, 'run_active', `The link run is ${run.status}; cancel it first.`);
+  const dependents = await runAnalyses(runId);
+  const working = dependents.filter((a) => a.status === 'queued' || a.status === 'running');
+  if (working.length)
+    throw new HttpError(
+      409,
+      'analysis_active',
+      `${working.length} analysis(es) of this run are still working; wait for them to finish.`,
+      { analyses: working.map(({ id, name }) => ({ id, name })) },
+    );
+  if (dependents.length && !withAnalyses)
+    throw new HttpError(
+      409,
+      'run_in_use',
+      `${dependents.length} analysis(es) read this link run; delete them first, or delete with ?withAnalyses=1 to remove them too.`,
+      { analyses: dependents.map(({ id, name }) => ({ id, name })) },
+    );
+  await purgeRun(
+    runId,
+    dependents.map((a) => a.id),
+  );
+  await auditLifecycle({
+    projectId: run.projectId,
+    userId,
+    action: 'link-run.delete',
+    subject: runId,
+    detail: { name: run.name, analyses: dependents.map(({ id, name }) => ({ id, name })) },
+  });
 }
 
 /** The same source pair in links `x` and `y`: the columns of the `links_key` index after run_id. */

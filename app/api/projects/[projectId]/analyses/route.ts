@@ -1,4 +1,5 @@
 import { requireProjectRole } from '@/lib/auth/access';
+import { archivedFilterFromUrl } from '@/lib/schemas/catalogs';
 import { json, jsonBody, route } from '@/lib/http/handler';
 import { externalAnalysisSchema } from '@/lib/schemas/analyses';
 import { analysisSchema, listAnalyses, startAnalysis } from '@/lib/services/analyses';
@@ -10,7 +11,7 @@ type P = { projectId: string };
 
 export const GET = route<P>(async (req, { projectId }) => {
   await requireProjectRole(projectId, 'viewer', req);
-  return json({ analyses: await listAnalyses(projectId) });
+  return json({ analyses: await listAnalyses(projectId, archivedFilterFromUrl(req.url)) });
 });
 
 const START = 'run ordering analyses';

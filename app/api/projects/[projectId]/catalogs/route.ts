@@ -1,4 +1,5 @@
 import { requireProjectRole } from '@/lib/auth/access';
+import { archivedFilterFromUrl } from '@/lib/schemas/catalogs';
 import { json, route } from '@/lib/http/handler';
 import { createCatalog, listCatalogs } from '@/lib/services/catalogs';
 
@@ -6,7 +7,7 @@ type P = { projectId: string };
 
 export const GET = route<P>(async (req, { projectId }) => {
   await requireProjectRole(projectId, 'viewer', req);
-  return json({ catalogs: await listCatalogs(projectId) });
+  return json({ catalogs: await listCatalogs(projectId, archivedFilterFromUrl(req.url)) });
 });
 
 /** Multipart upload: file, name, kind, optional mapping (JSON), policy and decimalComma → 202 with the queued catalog. */

@@ -1,4 +1,5 @@
 import { requireProjectRole } from '@/lib/auth/access';
+import { archivedFilterFromUrl } from '@/lib/schemas/catalogs';
 import { json, jsonBody, route } from '@/lib/http/handler';
 import { linkRunSchema, listRuns, startLinkRun } from '@/lib/services/link-runs';
 
@@ -6,7 +7,7 @@ type P = { projectId: string };
 
 export const GET = route<P>(async (req, { projectId }) => {
   await requireProjectRole(projectId, 'viewer', req);
-  return json({ runs: await listRuns(projectId) });
+  return json({ runs: await listRuns(projectId, archivedFilterFromUrl(req.url)) });
 });
 
 export const POST = route<P>(async (req, { projectId }) => {

@@ -3,7 +3,8 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
-import { api } from '@/lib/api-client';
+import { ApiError, api } from '@/lib/api-client';
+import { catalogDependentsSchema, type CatalogDependents } from '@/lib/schemas/catalogs';
 import type { Mapping } from '@/lib/ingest/mapping';
 import { asSentence, describeParseReport } from '@/lib/ingest/report';
 import { tracerStyle } from '@/lib/tracers';
@@ -22,6 +23,7 @@ import { EmptyState, ErrorNote, PageHeader, Panel } from '@/components/ui/panel'
 import { TracerBadge } from '@/components/ui/tracer-badge';
 
 type CatalogDetailJson = CatalogJson & {
+  usedBy: CatalogDependents;
   rejected: { line: number; reason: string }[];
   mapping: Mapping | null;
   columns: string[];
@@ -119,12 +121,66 @@ function ParseReport({ catalog }: { catalog: CatalogDetailJson }) {
   );
 }
 
-function DeleteCatalog({ catalog, onDeleted }: { catalog: CatalogJson; onDeleted: () => void }) {
+type UsedBy = CatalogDependents;
+
+/** The runs and analyses that read a catalog, each linked to its page. */
+function DependentList({ projectId, usedBy }: { projectId: string; usedBy: UsedBy }) {
+  return (
+    <ul data-testid="catalog-dependents" className="mt-2 list-disc space-y-0.5 pl-5 text-sm">
+      {usedBy.runs.map((r) => (
+        <li key={r.id}>
+          Link run{' '}
+          <a href={`/projects/${projectId}/link-runs/${r.id}`} className="text-accent underline">
+            {r.name}
+          </a>
+        </li>
+      ))}
+      {usedBy.analyses.map((a) => (
+        <li key={a.id}>Analysis {a.name}</li>
+      ))}
+    </ul>
+  );
+}
+
+/**
+ * Delete for an unused catalog; for one that runs or analyses read, the dialog lists them and
+ * offers to archive instead, which hides the catalog but keeps every run that uses it whole.
+ */
+function DeleteCatalog({
+  projectId,
+  catalog,
+  usedBy,
+  onDeleted,
+  onArchived,
+}: {
+  projectId: string;
+  catalog: CatalogJson;
+  usedBy: UsedBy;
+  onDeleted: () => void;
+  onArchived: () => void;
+}) {
   const dialog = useRef<HTMLDialogElement>(null);
   const [error, setError] = useState<string | null>(null);
+  // A run started since the page loaded shows up in the refusal's details.
+  const [refusedBy, setRefusedBy] = useState<UsedBy | null>(null);
+  const dependents = refusedBy ?? usedBy;
+  const inUse = dependents.runs.length + dependents.analyses.length > 0;
   const remove = useMutation({
     mutationFn: () => api(`/api/catalogs/${catalog.id}`, { method: 'DELETE' }),
     onSuccess: onDeleted,
+    onError: (e) => {
+      const parsed = e instanceof ApiError ? catalogDependentsSchema.safeParse(e.details) : null;
+      if (parsed?.success) setRefusedBy(parsed.data);
+      else setError(e.message);
+    },
+  });
+  const archive = useMutation({
+    mutationFn: () =>
+      api(`/api/catalogs/${catalog.id}`, { method: 'PATCH', json: { archived: true } }),
+    onSuccess: () => {
+      dialog.current?.close();
+      onArchived();
+    },
     onError: (e) => setError(e.message),
   });
   const busy = !isFinal(catalog.status);
@@ -136,6 +192,7 @@ function DeleteCatalog({ catalog, onDeleted }: { catalog: CatalogJson; onDeleted
         title={busy ? 'A catalog can be deleted once it is no longer being read.' : undefined}
         onClick={() => {
           setError(null);
+          setRefusedBy(null);
           dialog.current?.showModal();
         }}
       >
@@ -147,12 +204,25 @@ function DeleteCatalog({ catalog, onDeleted }: { catalog: CatalogJson; onDeleted
         className="m-auto max-w-md rounded-lg border border-rule bg-paper p-5 text-ink shadow-xl backdrop:bg-ink/30"
       >
         <h2 id="delete-title" className="text-lg font-semibold">
-          Delete “{catalog.name}”?
+          {inUse ? `“${catalog.name}” is in use` : `Delete “${catalog.name}”?`}
         </h2>
-        <p className="mt-2 text-sm text-ink-soft">
-          Its {formatCount(catalog.rowCount)} rows and parse report are removed for everyone in the
-          project. This cannot be undone; upload the file again to get it back.
-        </p>
+        {inUse ? (
+          <>
+            <p className="mt-2 text-sm text-ink-soft">
+              These read its rows, so it cannot be deleted while they exist:
+            </p>
+            <DependentList projectId={projectId} usedBy={dependents} />
+            <p className="mt-2 text-sm text-ink-soft">
+              Archive it instead: it leaves the catalog list and the new-run form, and every run and
+              analysis above stays complete and exportable. Delete them first to delete the catalog.
+            </p>
+          </>
+        ) : (
+          <p className="mt-2 text-sm text-ink-soft">
+            Its {formatCount(catalog.rowCount)} rows and parse report are removed for everyone in
+            the project. This cannot be undone; upload the file again to get it back.
+          </p>
+        )}
         <div className="mt-3">
           <ErrorNote>{error}</ErrorNote>
         </div>
@@ -160,12 +230,32 @@ function DeleteCatalog({ catalog, onDeleted }: { catalog: CatalogJson; onDeleted
           <Button variant="quiet" onClick={() => dialog.current?.close()}>
             Keep it
           </Button>
-          <Button variant="danger" disabled={remove.isPending} onClick={() => remove.mutate()}>
-            {remove.isPending ? 'Deleting…' : 'Delete catalog'}
-          </Button>
+          {inUse ? (
+            <Button disabled={archive.isPending} onClick={() => archive.mutate()}>
+              {archive.isPending ? 'Archiving…' : 'Archive catalog'}
+            </Button>
+          ) : (
+            <Button variant="danger" disabled={remove.isPending} onClick={() => remove.mutate()}>
+              {remove.isPending ? 'Deleting…' : 'Delete catalog'}
+            </Button>
+          )}
         </div>
       </dialog>
     </>
+  );
+}
+
+/** An archived catalog says so, and an editor can bring it back to the lists. */
+function RestoreCatalog({ catalogId, onRestored }: { catalogId: string; onRestored: () => void }) {
+  const restore = useMutation({
+    mutationFn: () =>
+      api(`/api/catalogs/${catalogId}`, { method: 'PATCH', json: { archived: false } }),
+    onSuccess: onRestored,
+  });
+  return (
+    <Button variant="quiet" disabled={restore.isPending} onClick={() => restore.mutate()}>
+      {restore.isPending ? 'Restoring…' : 'Restore from archive'}
+    </Button>
   );
 }
 
@@ -213,7 +303,7 @@ export function CatalogDetail({
     <div className="space-y-6">
       <PageHeader
         title={c.name}
-        lead={`${t.description}, from ${c.fileName}.`}
+        lead={`${t.description}, from ${c.fileName}.${c.archivedAt ? ' Archived: hidden from the catalog list and new runs; the runs that use it keep it.' : ''}`}
         actions={
           <div className="flex items-center gap-2">
             {ready && (
@@ -225,13 +315,28 @@ export function CatalogDetail({
                 Download CSV
               </a>
             )}
+            {canEdit && c.archivedAt && (
+              <RestoreCatalog
+                catalogId={c.id}
+                onRestored={() => {
+                  void qc.invalidateQueries({ queryKey: ['catalog', catalogId] });
+                  void qc.invalidateQueries({ queryKey: ['catalogs', projectId] });
+                }}
+              />
+            )}
             {canEdit && (
               <DeleteCatalog
+                projectId={projectId}
                 catalog={c}
+                usedBy={c.usedBy}
                 onDeleted={() => {
                   qc.removeQueries({ queryKey: ['catalog', catalogId] });
                   void qc.invalidateQueries({ queryKey: ['catalogs', projectId] });
                   router.push(`/projects/${projectId}/catalogs`);
+                }}
+                onArchived={() => {
+                  void qc.invalidateQueries({ queryKey: ['catalog', catalogId] });
+                  void qc.invalidateQueries({ queryKey: ['catalogs', projectId] });
                 }}
               />
             )}

@@ -186,8 +186,8 @@ function AnalysisList({
       <div>
         {toggle}
         <p className="text-sm text-ink-soft">
-          No ordering analysis {showArchived ? '' : 'in the list '}yet. Each one you start is kept
-          here to reopen.
+          No ordering analysis yet{showArchived ? '' : ' (archived ones are hidden)'}. Each one you
+          start is kept here to reopen.
         </p>
       </div>
     );
@@ -196,7 +196,7 @@ function AnalysisList({
       {toggle}
       <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
         <table className="w-full text-sm" aria-label="Ordering analyses">
-          <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="border-b border-rule text-left text-xs tracking-wide text-ink-soft">
             <tr>
               <th className="px-3 py-2">Analysis</th>
               <th className="px-3 py-2">Status</th>

@@ -161,7 +161,7 @@ describe('ordering analysis in the browser', () => {
       await page.waitForURL((u) => !u.pathname.startsWith('/signin'));
 
       await page.goto(`/projects/${projectId}/arms`);
-      await page.getByText('No ordering analysis yet.', { exact: false }).waitFor();
+      await page.getByText('No ordering analysis yet', { exact: false }).waitFor();
       // The generator rotates on a curve of its own (seed/generator/curve.ts); the analysis uses
       // the page's default, Reid et al. (2014), whose published 1σ of R0 and Θ0 prefill the form.
       expect(await page.getByLabel('Rotation curve').inputValue()).toBe('reid-2014');

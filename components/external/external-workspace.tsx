@@ -208,7 +208,7 @@ function AnalysisList({
   return (
     <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
       <table className="w-full text-sm" aria-label="External-galaxy analyses">
-        <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+        <thead className="border-b border-rule text-left text-xs tracking-wide text-ink-soft">
           <tr>
             <th className="px-3 py-2">Analysis</th>
             <th className="px-3 py-2">Started</th>

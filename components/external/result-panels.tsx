@@ -15,7 +15,7 @@ function Fact({
 }) {
   return (
     <div>
-      <dt className="text-xs uppercase tracking-wide text-ink-soft">{label}</dt>
+      <dt className="text-xs tracking-wide text-ink-soft">{label}</dt>
       <dd className="num mt-0.5" data-testid={testId}>
         {children}
       </dd>

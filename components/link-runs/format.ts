@@ -6,6 +6,7 @@ import type {
   RunStatus,
   VelocityParams,
 } from './types';
+import { formatDateTimeOrDash } from '@/lib/format/dates';
 
 /** Polling interval while a run is queued or running, in milliseconds. */
 export const RUN_POLL_MS = 1000;
@@ -77,7 +78,8 @@ export function fmtRange(
 export const fmtCount = (n: number) => n.toLocaleString('en-US');
 
 /** A date and time in the reader's locale, or `—`. */
-export const fmtWhen = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : '—');
+/** A time as every screen writes it: ISO 8601 in UTC (lib/format/dates.ts), or a dash. */
+export const fmtWhen = (iso: string | null) => formatDateTimeOrDash(iso);
 
 /** A duration given in seconds, in words (`0.4 s`, `12 s`, `3 min 05 s`). */
 export function fmtSeconds(s: number): string {

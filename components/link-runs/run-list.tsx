@@ -66,7 +66,7 @@ export function RunList({ projectId, canEdit }: { projectId: string; canEdit: bo
       <ShowArchived checked={showArchived} onChange={setShowArchived} />
       <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
         <table className="w-full text-sm" aria-label="Link runs">
-          <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="border-b border-rule text-left text-xs tracking-wide text-ink-soft">
             <tr>
               <th className="px-3 py-2">Name</th>
               <th className="px-3 py-2">Catalogs</th>

@@ -14,7 +14,7 @@ function sizeRange(lo: number, hi: number): string {
 function Figure({ label, value, testId }: { label: string; value: string; testId?: string }) {
   return (
     <div>
-      <dt className="text-xs uppercase tracking-wide text-ink-soft">{label}</dt>
+      <dt className="text-xs tracking-wide text-ink-soft">{label}</dt>
       <dd className="num mt-0.5 text-left text-xl" data-testid={testId}>
         {value}
       </dd>

@@ -4,6 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import Link from 'next/link';
 import { api } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/format/dates';
 import { EmptyState, ErrorNote, ProgressBar } from '@/components/ui/panel';
 import { TracerBadge } from '@/components/ui/tracer-badge';
 
@@ -133,7 +134,7 @@ export function CatalogList({ projectId, canEdit }: { projectId: string; canEdit
       {toggle}
       <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
         <table className="w-full text-sm" aria-label="Catalogs">
-          <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="border-b border-rule text-left text-xs tracking-wide text-ink-soft">
             <tr>
               <th className="px-3 py-2">Name</th>
               <th className="px-3 py-2">Class</th>
@@ -173,7 +174,7 @@ export function CatalogList({ projectId, canEdit }: { projectId: string; canEdit
                 </td>
                 <td className="px-3 py-2">{c.createdBy?.name ?? 'a former member'}</td>
                 <td className="px-3 py-2 whitespace-nowrap">
-                  <time dateTime={c.createdAt}>{new Date(c.createdAt).toLocaleString()}</time>
+                  <time dateTime={c.createdAt}>{formatDateTime(c.createdAt)}</time>
                 </td>
               </tr>
             ))}

@@ -126,7 +126,7 @@ describe('catalogs in the browser', () => {
     expect(reasons[0]).toContain('3l.207');
     expect(reasons[1]).toContain('97.500');
     expect(await page.getByTestId('rejected-summary').textContent()).toContain(
-      '2 rows were rejected',
+      '298 of 300 data rows were stored; 2 were rejected',
     );
 
     // Server-paged table: 50 rows a page, in file order first.

@@ -38,7 +38,7 @@ const TEST_PACKAGES = {
 };
 
 /** Installs the missing test packages (as root with apt-get); returns Chromium's path. */
-export function ensureChromium() {
+export function ensureTestPackages() {
   const missing = Object.keys(TEST_PACKAGES).filter((p) => !fs.existsSync(TEST_PACKAGES[p]));
   if (!missing.length) return TEST_PACKAGES.chromium;
   if (process.getuid?.() !== 0) {

@@ -7,7 +7,7 @@ import { stopDb, resetDb } from '../db/server.mjs';
 import {
   bin,
   buildIfStale,
-  ensureChromium,
+  ensureTestPackages,
   ensureNpmPackages,
   migrate,
   profileSettings,
@@ -21,7 +21,7 @@ import {
 
 async function main() {
   ensureNpmPackages();
-  const chromium = ensureChromium();
+  const chromium = ensureTestPackages();
   await startDatabase('test');
   resetDb('test');
   const settings = profileSettings('test');

@@ -1,7 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { and, asc, desc, eq } from 'drizzle-orm';
-import { z } from 'zod';
 import { db } from '@/db/client';
 import { TRACER_KINDS, catalogRejects, catalogs, jobs, users } from '@/db/schema';
 import { newId } from '@/lib/auth/secrets';
@@ -10,9 +9,6 @@ import type { ArchivedFilter } from '@/lib/schemas/catalogs';
 import { dropRowsTables } from './catalog-tables';
 import { archivedCondition, auditLifecycle, catalogDependents } from './record-lifecycle';
 import { checkUpload, receiveUpload, uploadDir } from './uploads';
-
-export const kindSchema = z.enum(TRACER_KINDS);
-export const policySchema = z.enum(['skip-bad-rows', 'reject-file']);
 
 export type CatalogSummary = {
   id: string;

@@ -2,7 +2,9 @@
 
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
+import { useRouter, useSearchParams } from 'next/navigation';
 import { api } from '@/lib/api-client';
+import { listSearch, type ComplexNeighbours, type ReviewProgress } from '@/lib/schemas/complexes';
 import { ComplexLv } from '@/components/plots/complex-lv';
 import { ComplexSky } from '@/components/plots/complex-sky';
 import { LinksTable } from '@/components/tables/complex-links-table';
@@ -13,8 +15,10 @@ import { TRACER_KINDS } from '@/lib/tracers';
 import { AnalysisPlacementPanel } from './analysis-placement-panel';
 import { fmt, fmtCount } from './format';
 import { DistancePanel } from './distance-panel';
+import { ReviewKeyLegend, usePageKeys } from './review-keys';
 import { ReviewPanel } from './review-panel';
 import { useRun } from './run-detail';
+import { retryUnlessGone } from './run-status';
 import type { ComplexDetail as ComplexDetailJson, ComplexPage } from './types';
 
 /** Complexes drawn behind the highlighted one in the longitude–velocity plane. */
@@ -39,23 +43,11 @@ function Fact({
   );
 }
 
-/** The lowest and highest complex id of a run, for previous/next navigation. */
-function useIdBounds(runId: string) {
-  const edge = (dir: 'asc' | 'desc') =>
-    api<ComplexPage>(`/api/link-runs/${runId}/complexes?sort=id&dir=${dir}&pageSize=1`).then((p) =>
-      p.complexes[0] ? Number(p.complexes[0].id) : null,
-    );
-  return useQuery({
-    queryKey: ['complex-id-bounds', runId],
-    queryFn: async () => ({ first: await edge('asc'), last: await edge('desc') }),
-    staleTime: Infinity,
-  });
-}
-
 /**
  * One complex: its facts, members (canonical and original columns), links, a sky plot with the
  * match circles, its place in the longitude–velocity plane, its review with history, and where
- * the run's latest ordering analysis placed it.
+ * the run's latest ordering analysis placed it. The address carries the list it was opened from
+ * (filters and sort), so previous/next (j/k) and next not reviewed (n) move through that list.
  */
 export function ComplexDetail({
   projectId,
@@ -68,11 +60,40 @@ export function ComplexDetail({
   complexId: string;
   canEdit: boolean;
 }) {
+  const router = useRouter();
+  const list = listSearch(useSearchParams()).toString();
   const run = useRun(runId);
   const detail = useQuery({
     queryKey: ['complex', runId, complexId],
     queryFn: () =>
       api<{ complex: ComplexDetailJson }>(`/api/link-runs/${runId}/complexes/${complexId}`),
+    retry: retryUnlessGone,
+  });
+  const neighbours = useQuery({
+    queryKey: ['complexes', runId, 'neighbours', complexId, list],
+    queryFn: () =>
+      api<ComplexNeighbours>(
+        `/api/link-runs/${runId}/complexes/${complexId}/neighbours${list ? `?${list}` : ''}`,
+      ),
+    placeholderData: keepPreviousData,
+    retry: retryUnlessGone,
+  });
+  const progress = useQuery({
+    queryKey: ['complexes', runId, 'progress', list],
+    queryFn: () =>
+      api<ReviewProgress>(`/api/link-runs/${runId}/complexes/review${list ? `?${list}` : ''}`),
+    placeholderData: keepPreviousData,
+    retry: retryUnlessGone,
+  });
+  const runBase = `/projects/${projectId}/link-runs/${runId}`;
+  const hrefOf = (id: string) => `${runBase}/complexes/${id}${list ? `?${list}` : ''}`;
+  // Neighbours of this complex only: while the next one loads, the keys wait for its own.
+  const near = neighbours.data && !neighbours.isPlaceholderData ? neighbours.data : null;
+  usePageKeys((key) => {
+    const to = { j: near?.next, k: near?.prev, n: near?.nextUnreviewed }[key];
+    if (to === undefined) return false;
+    if (to !== null) router.push(hrefOf(to));
+    return true;
   });
   const background = useQuery({
     queryKey: ['complexes', runId, 'lv-background'],
@@ -83,7 +104,6 @@ export function ComplexDetail({
     placeholderData: keepPreviousData,
     staleTime: 60_000,
   });
-  const bounds = useIdBounds(runId);
   if (detail.isError)
     return <ErrorNote>Could not load the complex: {detail.error.message}</ErrorNote>;
   if (run.isError) return <ErrorNote>Could not load the link run: {run.error.message}</ErrorNote>;
@@ -91,11 +111,8 @@ export function ComplexDetail({
     return <p className="text-sm text-ink-soft">Loading the complex…</p>;
   const c = detail.data.complex;
   const r = run.data.run;
-  const runBase = `/projects/${projectId}/link-runs/${runId}`;
-  const idNum = Number(c.id);
-  const { first = null, last = null } = bounds.data ?? {};
-  const prev = first !== null && idNum > first ? idNum - 1 : null;
-  const next = last !== null && idNum < last ? idNum + 1 : null;
+  const prev = near?.prev ?? null;
+  const next = near?.next ?? null;
   const names = new Map(c.members.map((m) => [m.catalogId, m.catalogName]));
   for (const cat of r.catalogs) if (!names.has(cat.id)) names.set(cat.id, cat.name);
   const catalogName = (id: string) => names.get(id) ?? id;
@@ -113,22 +130,47 @@ export function ComplexDetail({
         lead={`From the link run “${r.name}”.`}
         actions={
           <nav aria-label="Complexes" className="flex items-center gap-2">
-            <Link href={runBase} className="text-sm text-ink-soft hover:text-ink">
+            <Link
+              href={`${runBase}${list ? `?${list}` : ''}`}
+              className="text-sm text-ink-soft hover:text-ink"
+            >
               Back to the run
             </Link>
             {prev !== null && (
-              <Link href={`${runBase}/complexes/${prev}`} className={pager}>
+              <Link href={hrefOf(prev)} className={pager}>
                 ← Complex {prev}
               </Link>
             )}
             {next !== null && (
-              <Link href={`${runBase}/complexes/${next}`} className={pager}>
+              <Link href={hrefOf(next)} className={pager}>
                 Complex {next} →
               </Link>
             )}
           </nav>
         }
       />
+      <div className="space-y-1">
+        <p className="text-sm" data-testid="list-place">
+          {near && near.position !== null
+            ? `Complex ${fmtCount(near.position)} of ${fmtCount(near.total)} in this list`
+            : near
+              ? `Not in this list (of ${fmtCount(near.total)}) any more`
+              : ''}
+          {progress.data && (
+            <span className="text-ink-soft" data-testid="review-progress">
+              {' '}
+              · {fmtCount(progress.data.run.reviewed)} of {fmtCount(progress.data.run.total)}{' '}
+              reviewed in this run
+              {list &&
+                ` · ${fmtCount(progress.data.filter.reviewed)} of ${fmtCount(progress.data.filter.total)} in this list`}
+            </span>
+          )}
+          {near && near.nextUnreviewed === null && (
+            <span className="text-ok"> · nothing left to review in this list</span>
+          )}
+        </p>
+        <ReviewKeyLegend canEdit={canEdit} />
+      </div>
       {c.overCap && (
         <p
           role="status"

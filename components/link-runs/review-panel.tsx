@@ -6,6 +6,7 @@ import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { ErrorNote, Panel } from '@/components/ui/panel';
 import { REVIEW_TONE, REVIEW_WORDS, fmtWhen } from './format';
+import { VERDICT_KEYS, usePageKeys } from './review-keys';
 import type { Complex, HistoryEntry, Review } from './types';
 
 const CHOICES: { value: Review; explain: string }[] = [
@@ -16,7 +17,7 @@ const CHOICES: { value: Review; explain: string }[] = [
 
 /**
  * The review of a complex (accepted / doubtful / rejected, with a note) and its history. Editors
- * change it; viewers see it read-only.
+ * change it here or with the verdict keys (a, d, r); viewers see it read-only.
  */
 export function ReviewPanel({
   runId,
@@ -34,10 +35,10 @@ export function ReviewPanel({
   const [note, setNote] = useState(complex.reviewNote ?? '');
   const [saved, setSaved] = useState(false);
   const save = useMutation({
-    mutationFn: () =>
+    mutationFn: (body: { review: Review | null; note: string }) =>
       api<{ complex: Complex }>(`/api/link-runs/${runId}/complexes/${complex.id}`, {
         method: 'PATCH',
-        json: { review, note },
+        json: body,
       }),
     onSuccess: () => {
       setSaved(true);
@@ -45,6 +46,15 @@ export function ReviewPanel({
       void qc.invalidateQueries({ queryKey: ['complexes', runId] });
     },
   });
+  // A verdict key saves at once, with the note as it stands in the field.
+  usePageKeys((key) => {
+    const verdict = VERDICT_KEYS[key];
+    if (!verdict) return false;
+    setReview(verdict);
+    setSaved(false);
+    save.mutate({ review: verdict, note });
+    return true;
+  }, canEdit);
   const current = complex.review ?? 'unreviewed';
   const changed = review !== complex.review || note !== (complex.reviewNote ?? '');
   return (
@@ -70,7 +80,7 @@ export function ReviewPanel({
             onSubmit={(e) => {
               e.preventDefault();
               setSaved(false);
-              save.mutate();
+              save.mutate({ review, note });
             }}
           >
             <fieldset className="space-y-1.5">

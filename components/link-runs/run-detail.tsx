@@ -13,7 +13,6 @@ import { TracerBadge } from '@/components/ui/tracer-badge';
 import {
   LINK_MODE_WORDS,
   MISSING_VELOCITY_WORDS,
-  RUN_POLL_MS,
   describeRadius,
   describeVelocity,
   fmtCount,
@@ -24,17 +23,17 @@ import { RunCompare } from './run-compare';
 import { RunExports } from './run-exports';
 import { RecordActions } from './record-actions';
 import { runsKey } from './run-list';
-import { RunStatusCell } from './run-status';
+import { RunStatusCell, retryUnlessGone, runPollMs } from './run-status';
 import { RunSummaryView } from './run-summary';
 import type { Run } from './types';
 
-/** One run, fetched again every second until it is done, failed or cancelled. */
+/** One run, fetched again every second until it is done, failed or cancelled, or is gone. */
 export function useRun(runId: string) {
   return useQuery({
     queryKey: ['link-run', runId],
     queryFn: () => api<{ run: Run & RunLifecycleJson }>(`/api/link-runs/${runId}`),
-    refetchInterval: (q) =>
-      q.state.data && isFinalRun(q.state.data.run.status) ? false : RUN_POLL_MS,
+    refetchInterval: runPollMs,
+    retry: retryUnlessGone,
   });
 }
 

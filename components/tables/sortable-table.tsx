@@ -13,16 +13,19 @@ declare module '@tanstack/react-table' {
 
 /**
  * The body of a server-sorted table: headers that sort on click (▲/▼, `aria-sort`), then the
- * rows. Numeric columns (column meta `numeric`) are right-aligned in tabular figures.
+ * rows. Numeric columns (column meta `numeric`) are right-aligned in tabular figures. The row
+ * `cursorRowId` (a keyboard cursor) is marked and kept in view.
  */
 export function SortableTable<T>({
   table,
   label,
   busy,
+  cursorRowId,
 }: {
   table: Table<T>;
   label: string;
   busy: boolean;
+  cursorRowId?: string;
 }) {
   return (
     <table className="w-full text-sm" aria-label={label} aria-busy={busy}>
@@ -65,7 +68,19 @@ export function SortableTable<T>({
       </thead>
       <tbody className="divide-y divide-rule/60">
         {table.getRowModel().rows.map((r) => (
-          <tr key={r.id} className="hover:bg-paper-deep/40">
+          <tr
+            key={r.id}
+            className={
+              r.id === cursorRowId
+                ? 'bg-accent/10 outline outline-2 -outline-offset-2 outline-accent'
+                : 'hover:bg-paper-deep/40'
+            }
+            aria-current={r.id === cursorRowId ? 'true' : undefined}
+            data-testid={r.id === cursorRowId ? 'cursor-row' : undefined}
+            ref={
+              r.id === cursorRowId ? (el) => el?.scrollIntoView({ block: 'nearest' }) : undefined
+            }
+          >
             {r.getVisibleCells().map((c) => (
               <td
                 key={c.id}

@@ -32,7 +32,7 @@ import {
   type ReviewProgress,
 } from '@/lib/schemas/complexes';
 import { rowsTableName } from './catalog-tables';
-import { requireDoneRun } from './link-runs';
+import { requireDoneRun, runProject } from './link-runs';
 
 /** Sort keys and their columns; `dist` and `arm` are the latest done analysis's placement. */
 const SORTS: Record<ComplexSort, string> = {
@@ -343,6 +343,17 @@ export async function bulkReview(runId: string, userId: string, input: BulkRevie
     }
     return { matched: matched.length, changed: changed.length };
   });
+}
+
+/** The project of a complex's run, for its page (404 when the run or the complex is missing). */
+export async function complexProject(runId: string, complexId: number): Promise<string> {
+  const projectId = await runProject(runId);
+  const [c] = await db
+    .select({ id: complexes.id })
+    .from(complexes)
+    .where(and(eq(complexes.runId, runId), eq(complexes.id, complexId)));
+  if (!c) throw notFound('Complex');
+  return projectId;
 }
 
 async function loadComplex(runId: string, complexId: number) {

@@ -5,7 +5,9 @@ import { OrderingWorkspace } from '@/components/ordering/ordering-workspace';
 import { PageHeader } from '@/components/ui/panel';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
+import { analysisProject } from '@/lib/services/analyses';
 import { getProject } from '@/lib/services/projects';
+import { requireInProject } from '../require-in-project';
 
 export async function generateMetadata({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
@@ -24,6 +26,7 @@ export default async function ArmsPage({
   const { role } = await pageProjectRole(projectId);
   const target = projectTarget((await getProject(projectId, role)).settings);
   const analysisId = typeof analysis === 'string' && analysis ? analysis : null;
+  if (analysisId) await requireInProject(projectId, () => analysisProject(analysisId));
   if (target.kind === 'external-galaxy')
     return (
       <>

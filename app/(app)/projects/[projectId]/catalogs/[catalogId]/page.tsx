@@ -1,6 +1,8 @@
 import { projectPageTitle } from '@/components/ui/page-title';
 import { pageProjectRole } from '@/lib/auth/page-user';
 import { roleAtLeast } from '@/lib/auth/roles';
+import { catalogProject } from '@/lib/services/catalogs';
+import { requireInProject } from '../../require-in-project';
 import { CatalogDetail } from './catalog-detail';
 
 export async function generateMetadata({
@@ -19,6 +21,7 @@ export default async function CatalogPage({
 }) {
   const { projectId, catalogId } = await params;
   const { role } = await pageProjectRole(projectId);
+  await requireInProject(projectId, () => catalogProject(catalogId));
   return (
     <CatalogDetail
       projectId={projectId}

@@ -1,2 +1,0 @@
--- Placeholder until this migration has statements.
-SELECT 1;

@@ -43,10 +43,10 @@ export function ComplexesSection({
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end gap-4">
-        <label className="block space-y-1 text-sm">
+        <label className="block w-full space-y-1 text-sm sm:w-auto">
           <span className="font-medium">Link run</span>
           <select
-            className="block min-w-96 rounded-md border border-rule bg-white px-3 py-2"
+            className="block w-full rounded-md sm:w-96 border border-rule bg-white px-3 py-2"
             value={run.id}
             onChange={(e) =>
               router.replace(`/projects/${projectId}/complexes?run=${e.target.value}`)

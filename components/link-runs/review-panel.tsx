@@ -142,9 +142,7 @@ export function ReviewPanel({
           </form>
         )}
         <div>
-          <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
-            History
-          </h3>
+          <h3 className="mb-1 text-xs font-semibold tracking-wide text-ink-soft">History</h3>
           {history.length === 0 ? (
             <p className="text-sm text-ink-soft">Not reviewed yet.</p>
           ) : (

@@ -40,7 +40,7 @@ export function useRun(runId: string) {
 function Fact({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <div>
-      <dt className="text-xs uppercase tracking-wide text-ink-soft">{label}</dt>
+      <dt className="text-xs tracking-wide text-ink-soft">{label}</dt>
       <dd className="mt-0.5">{children}</dd>
     </div>
   );

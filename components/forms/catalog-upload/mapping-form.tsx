@@ -83,9 +83,7 @@ function Group({
 }) {
   return (
     <fieldset className="rounded-md border border-rule bg-paper/60 p-3">
-      <legend className="px-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
-        {title}
-      </legend>
+      <legend className="px-1 text-xs font-semibold tracking-wide text-ink-soft">{title}</legend>
       {hint && <p className="mb-2 text-xs text-ink-soft">{hint}</p>}
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">{children}</div>
     </fieldset>

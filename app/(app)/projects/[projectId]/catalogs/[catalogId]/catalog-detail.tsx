@@ -4,6 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
 import { ApiError, api } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/format/dates';
 import { catalogDependentsSchema, type CatalogDependents } from '@/lib/schemas/catalogs';
 import type { Mapping } from '@/lib/ingest/mapping';
 import { asSentence, describeParseReport } from '@/lib/ingest/report';
@@ -81,7 +82,7 @@ async function fetchPoints(catalogId: string): Promise<Float32Array> {
 function Fact({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <div>
-      <dt className="text-xs uppercase tracking-wide text-ink-soft">{label}</dt>
+      <dt className="text-xs tracking-wide text-ink-soft">{label}</dt>
       <dd className="mt-0.5">{children}</dd>
     </div>
   );
@@ -366,7 +367,7 @@ export function CatalogDetail({
           </Fact>
           <Fact label="Uploaded">
             {c.createdBy?.name ?? 'a former member'},{' '}
-            <time dateTime={c.createdAt}>{new Date(c.createdAt).toLocaleString()}</time>
+            <time dateTime={c.createdAt}>{formatDateTime(c.createdAt)}</time>
           </Fact>
         </dl>
         {c.status === 'failed' && (

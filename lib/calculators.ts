@@ -73,14 +73,24 @@ export const KINEMATIC_FLAG_TEXT: Readonly<Record<KinematicFlag, string>> = Obje
     'No point on this sight line has this velocity under circular rotation (a forbidden velocity, or a direction where velocity does not depend on distance).',
 });
 
-/** A 400 that names the offending entry, e.g. `points[17]: latitude 95 is outside −90…90°`. */
-function entryError(list: string, index: number, reason: string): HttpError {
-  const path = `${list}[${index}]`;
+/** Most bad entries or pasted lines one error lists; the rest are counted. */
+export const MAX_REPORTED_PROBLEMS = 50;
+
+/**
+ * A 400 that names every offending entry, first first, e.g.
+ * `points[17]: latitude 95 is outside −90…90° (and 3 more bad points)`; `details` lists up to
+ * {@link MAX_REPORTED_PROBLEMS} of them with their index.
+ */
+function entriesError(list: string, problems: { index: number; reason: string }[]): HttpError {
+  const [first] = problems;
+  const more = problems.length - 1;
   return new HttpError(
     400,
     `invalid_${list === 'points' ? 'point' : 'source'}`,
-    `${path}: ${reason}`,
-    [{ path, index, message: reason }],
+    `${list}[${first.index}]: ${first.reason}${more > 0 ? ` (and ${more} more bad ${list})` : ''}`,
+    problems
+      .slice(0, MAX_REPORTED_PROBLEMS)
+      .map(({ index, reason }) => ({ path: `${list}[${index}]`, index, message: reason })),
   );
 }
 
@@ -141,7 +151,7 @@ function readGalactic(point: unknown[]): [number, number] {
  * Converts a checked request: equatorial (J2000 / ICRS RA, Dec in degrees, or RA/Dec text such
  * as `18:03:40.2` / `-24 22 43` read by parseRaDeg/parseDecDeg) to Galactic (l in [0, 360), b),
  * or Galactic (l, b in degrees, numbers or decimal text) to equatorial (RA in [0, 360), Dec).
- * Throws a 413 beyond {@link MAX_TOOL_POINTS} and a 400 naming the first bad point's index.
+ * Throws a 413 beyond {@link MAX_TOOL_POINTS} and a 400 naming every bad point's index.
  */
 export function convertPoints(input: ConvertRequest): { points: Array<[number, number]> } {
   const n = input.points.length;
@@ -149,24 +159,24 @@ export function convertPoints(input: ConvertRequest): { points: Array<[number, n
   const lon = new Float64Array(n);
   const lat = new Float64Array(n);
   const read = input.from === 'equatorial' ? readEquatorial : readGalactic;
+  const problems: { index: number; reason: string }[] = [];
   for (let i = 0; i < n; i++) {
     const p = input.points[i];
     if (!Array.isArray(p) || p.length !== 2) {
-      throw entryError(
-        'points',
-        i,
-        `expected a [longitude, latitude] pair, got ${JSON.stringify(p)}`,
-      );
+      problems.push({
+        index: i,
+        reason: `expected a [longitude, latitude] pair, got ${JSON.stringify(p)}`,
+      });
+      continue;
     }
     try {
       [lon[i], lat[i]] = read(p);
     } catch (e) {
-      if (e instanceof RangeError || e instanceof CoordinateParseError) {
-        throw entryError('points', i, e.message);
-      }
-      throw e;
+      if (!(e instanceof RangeError || e instanceof CoordinateParseError)) throw e;
+      problems.push({ index: i, reason: e.message });
     }
   }
+  if (problems.length > 0) throw entriesError('points', problems);
   let outLon: Float64Array;
   let outLat: Float64Array;
   if (input.from === 'equatorial') {
@@ -303,7 +313,7 @@ const nullable = (x: number): number | null => (Number.isNaN(x) ? null : x);
  * Up to {@link MAX_INTERVAL_SOURCES} sources also get 68 % Monte Carlo intervals from
  * {@link INTERVAL_DRAWS} draws over the velocity and the curve's published R0 and Θ0 errors
  * (`kinematicIntervalsBulk`, seed 1, so the same request gives the same intervals). Throws a 413
- * beyond {@link MAX_TOOL_POINTS} sources and a 400 naming the first bad source's index.
+ * beyond {@link MAX_TOOL_POINTS} sources and a 400 naming every bad source's index.
  */
 export function kinematicDistances(input: KinematicDistanceRequest): {
   curve: ToolCurveUsed;
@@ -316,14 +326,16 @@ export function kinematicDistances(input: KinematicDistanceRequest): {
   const bDeg = new Float64Array(n);
   const vKms = new Float64Array(n);
   const vErrKms = new Float64Array(n);
+  const problems: { index: number; reason: string }[] = [];
   for (let i = 0; i < n; i++) {
     try {
       [lDeg[i], bDeg[i], vKms[i], vErrKms[i]] = readSource(input.sources[i]);
     } catch (e) {
-      if (e instanceof RangeError) throw entryError('sources', i, e.message);
-      throw e;
+      if (!(e instanceof RangeError)) throw e;
+      problems.push({ index: i, reason: e.message });
     }
   }
+  if (problems.length > 0) throw entriesError('sources', problems);
   const curve = toolCurve(input.curve, input.R0, input.theta0);
   const out = kinematicDistancesBulk(lDeg, bDeg, vKms, curve, vErrKms);
   const mc =
@@ -378,16 +390,46 @@ export function kinematicDistances(input: KinematicDistanceRequest): {
 /** A pasted line split into its values, with its 1-based line number. */
 export type PastedRow = { line: number; values: string[] };
 
+/** One pasted line that cannot be used, and why. */
+export type LineProblem = { line: number; reason: string };
+
+/** Every unusable pasted line, in line order; the message lists them (see {@link linesReport}). */
+export class PastedLinesError extends RangeError {
+  constructor(readonly problems: LineProblem[]) {
+    super(linesReport(problems));
+    this.name = 'PastedLinesError';
+  }
+}
+
+/**
+ * The problems as lines of text, `Line 4: …`, first first, at most `cap` of them and then
+ * "and N more bad lines."
+ */
+export function linesReport(problems: LineProblem[], cap = MAX_REPORTED_PROBLEMS): string {
+  const sorted = [...problems].sort((x, y) => x.line - y.line);
+  const shown = sorted.slice(0, cap).map((p) => `Line ${p.line}: ${p.reason}`);
+  const more = sorted.length - shown.length;
+  if (more > 0) shown.push(`and ${more} more bad line${more === 1 ? '' : 's'}.`);
+  return shown.join('\n');
+}
+
 /**
  * Reads pasted text into rows of `width` values (2 for positions, 3 for l, b, v), one row per
  * line, or up to `maxWidth` values where trailing ones are optional (4 for l, b, v, σ_v). Blank
  * lines and lines starting with `#` are skipped. Values are separated by commas, semicolons or
  * tabs, or else by spaces; with spaces, a position line of six values is read as two
- * sexagesimal triples (`18 03 40.2 -24 22 43`). Throws a RangeError naming the line when a line
- * has the wrong number of values.
+ * sexagesimal triples (`18 03 40.2 -24 22 43`). `check` may refuse a row's values with a reason.
+ * Throws a {@link PastedLinesError} listing every line with the wrong number of values or refused
+ * by `check`.
  */
-export function readPastedRows(text: string, width: 2 | 3, maxWidth: number = width): PastedRow[] {
+export function readPastedRows(
+  text: string,
+  width: 2 | 3,
+  maxWidth: number = width,
+  check?: (values: string[]) => string | null,
+): PastedRow[] {
   const rows: PastedRow[] = [];
+  const problems: LineProblem[] = [];
   text.split(/\r\n|\r|\n/).forEach((raw, i) => {
     const line = raw.trim();
     if (line === '' || line.startsWith('#')) return;
@@ -404,11 +446,16 @@ export function readPastedRows(text: string, width: 2 | 3, maxWidth: number = wi
           : maxWidth > width
             ? 'three or four values (l, b, v and optionally σ_v)'
             : 'three values (l, b, v)';
-      throw new RangeError(
-        `line ${i + 1}: expected ${wanted}, found ${values.length} in "${line}"`,
-      );
+      problems.push({
+        line: i + 1,
+        reason: `expected ${wanted}, found ${values.length} in "${line}"`,
+      });
+      return;
     }
-    rows.push({ line: i + 1, values });
+    const refused = check?.(values);
+    if (refused) problems.push({ line: i + 1, reason: refused });
+    else rows.push({ line: i + 1, values });
   });
+  if (problems.length > 0) throw new PastedLinesError(problems);
   return rows;
 }

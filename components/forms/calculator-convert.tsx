@@ -86,7 +86,7 @@ export function ConvertCalculator() {
             Fill an example
           </Button>
         </div>
-        <ErrorNote>{error}</ErrorNote>
+        <ErrorNote>{error && <span className="whitespace-pre-line">{error}</span>}</ErrorNote>
       </form>
       {result && <ConvertResults result={result} />}
     </div>

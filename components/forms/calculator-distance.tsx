@@ -66,18 +66,20 @@ const kpc = (x: number | null) => (x === null ? '—' : x.toFixed(3));
 const range = (r: KpcInterval | null | undefined) =>
   r ? `${r[0].toFixed(2)}–${r[1].toFixed(2)}` : '—';
 
+const NAMES = ['l', 'b', 'v', 'σ_v'];
+
+/** Why a pasted row's values cannot be read, or null: every value a number, σ_v positive. */
+function refuseValues(values: string[]): string | null {
+  const bad = values.findIndex((s) => s === '' || !Number.isFinite(Number(s)));
+  if (bad >= 0) return `${NAMES[bad]} "${values[bad]}" is not a number`;
+  if (values[3] !== undefined && !(Number(values[3]) > 0))
+    return `σ_v "${values[3]}" must be a positive number`;
+  return null;
+}
+
 function readSources(text: string): Source[] {
-  return readPastedRows(text, 3, 4).map(({ line, values }) => {
-    const [l, b, v, vErr] = values.map((s, j) => {
-      const n = Number(s);
-      if (s === '' || !Number.isFinite(n)) {
-        throw new RangeError(`line ${line}: ${['l', 'b', 'v', 'σ_v'][j]} "${s}" is not a number`);
-      }
-      return n;
-    });
-    if (vErr !== undefined && !(vErr > 0)) {
-      throw new RangeError(`line ${line}: σ_v "${values[3]}" must be a positive number`);
-    }
+  return readPastedRows(text, 3, 4, refuseValues).map(({ line, values }) => {
+    const [l, b, v, vErr] = values.map(Number);
     return { line, l, b, v, vErr };
   });
 }
@@ -184,7 +186,7 @@ export function DistanceCalculator({ presets }: { presets: ToolCurvePreset[] }) 
             Fill an example
           </Button>
         </div>
-        <ErrorNote>{error}</ErrorNote>
+        <ErrorNote>{error && <span className="whitespace-pre-line">{error}</span>}</ErrorNote>
       </form>
       {result && (
         <DistanceResults

@@ -2,6 +2,7 @@
 
 import { useState } from 'react';
 import { ApiError } from '@/lib/api-client';
+import { linesReport } from '@/lib/calculators';
 import { Button } from '@/components/ui/button';
 
 /** Rows shown on screen; the CSV always holds every row. */
@@ -143,14 +144,28 @@ export function PasteArea({
   );
 }
 
-/** Turns an API error that names `points[i]` / `sources[i]` into a message naming the pasted line. */
+/**
+ * Turns an API error that names `points[i]` / `sources[i]` entries into lines naming the pasted
+ * lines they came from, first first (`Line 4: …`), with the count of the ones not listed.
+ */
 export function lineMessage(message: string, details: unknown, lines: number[]): string {
-  const first = Array.isArray(details)
-    ? (details[0] as { index?: unknown } | undefined)
-    : undefined;
-  const index = typeof first?.index === 'number' ? first.index : null;
-  if (index === null || lines[index] === undefined) return message;
-  return `Line ${lines[index]}: ${message.replace(/^\w+\[\d+\]: /, '')}`;
+  const entries = Array.isArray(details)
+    ? (details as { index?: unknown; message?: unknown }[]).filter(
+        (d) => typeof d?.index === 'number' && lines[d.index] !== undefined,
+      )
+    : [];
+  if (entries.length === 0) return message;
+  const problems = entries.map((d) => ({
+    line: lines[d.index as number],
+    reason: typeof d.message === 'string' ? d.message : message,
+  }));
+  // The API lists at most MAX_REPORTED_PROBLEMS entries and counts the rest in its message.
+  const more = /\(and (\d+) more bad \w+\)$/.exec(message);
+  const unlisted = more ? Number(more[1]) + 1 - entries.length : 0;
+  const report = linesReport(problems);
+  return unlisted > 0
+    ? `${report}\nand ${unlisted} more bad line${unlisted === 1 ? '' : 's'}.`
+    : report;
 }
 
 /**

@@ -41,6 +41,19 @@ export function TeamManager({
     setError(null);
     act.mutate(fn);
   };
+  // A refused role change is told beside the select it came from, which snaps back to the role.
+  const [roleError, setRoleError] = useState<{ userId: string; message: string } | null>(null);
+  const roleChange = useMutation({
+    mutationFn: ({ userId, role }: { userId: string; role: string }) =>
+      api(`/api/projects/${projectId}/members/${userId}`, { method: 'PATCH', json: { role } }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: key }),
+    onError: (e, { userId }) => setRoleError({ userId, message: e.message }),
+  });
+  const changeRole = (userId: string, role: string) => {
+    setRoleError(null);
+    setError(null);
+    roleChange.mutate({ userId, role });
+  };
   return (
     <div className="space-y-6">
       {isOwner && (
@@ -103,23 +116,31 @@ export function TeamManager({
                 <td>{m.email}</td>
                 <td>
                   {isOwner ? (
-                    <select
-                      aria-label={`Role of ${m.email}`}
-                      className="rounded border border-rule bg-white px-2 py-1"
-                      value={m.role}
-                      onChange={(e) =>
-                        run(() =>
-                          api(`/api/projects/${projectId}/members/${m.userId}`, {
-                            method: 'PATCH',
-                            json: { role: e.target.value },
-                          }),
-                        )
-                      }
-                    >
-                      <option value="viewer">viewer</option>
-                      <option value="editor">editor</option>
-                      <option value="owner">owner</option>
-                    </select>
+                    <>
+                      <select
+                        aria-label={`Role of ${m.email}`}
+                        aria-describedby={
+                          roleError?.userId === m.userId ? `role-error-${m.userId}` : undefined
+                        }
+                        aria-invalid={roleError?.userId === m.userId || undefined}
+                        className="rounded border border-rule bg-white px-2 py-1"
+                        value={m.role}
+                        onChange={(e) => changeRole(m.userId, e.target.value)}
+                      >
+                        <option value="viewer">viewer</option>
+                        <option value="editor">editor</option>
+                        <option value="owner">owner</option>
+                      </select>
+                      {roleError?.userId === m.userId && (
+                        <p
+                          id={`role-error-${m.userId}`}
+                          role="alert"
+                          className="mt-1 max-w-xs text-xs text-danger"
+                        >
+                          {roleError.message}
+                        </p>
+                      )}
+                    </>
                   ) : (
                     m.role
                   )}

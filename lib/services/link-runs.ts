@@ -1,5 +1,4 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
-import { z } from 'zod';
 import { db } from '@/db/client';
 import { withStatementTimeout } from '@/db/statement-timeout';
 import { catalogs, jobs, linkRuns, projects, users } from '@/db/schema';
@@ -8,37 +7,11 @@ import { HttpError, notFound } from '@/lib/http/errors';
 import type { ArchivedFilter } from '@/lib/schemas/catalogs';
 import type { RunPatch } from '@/lib/schemas/link-runs';
 import { projectTargetSchema } from '@/lib/schemas/analyses';
-import { plainText } from '@/lib/schemas/text';
+import type { LinkRunParams } from '@/lib/schemas/link-run-request';
 import { requestCancel } from './jobs';
 import { archivedCondition, auditLifecycle, purgeRun, runAnalyses } from './record-lifecycle';
 
-/** The link-run body of API.md, with the options a careful user needs made explicit. */
-export const linkRunSchema = z.object({
-  catalogIds: z
-    .array(z.string())
-    .min(2, 'Choose at least two catalogs.')
-    .max(8, 'Choose at most eight catalogs.'),
-  radius: z.discriminatedUnion('mode', [
-    z.object({ mode: z.literal('fixed'), arcsec: z.number().min(0).max(36_000) }),
-    z.object({
-      mode: z.literal('scaled'),
-      factor: z.number().positive().max(100),
-      minArcsec: z.number().min(0).max(36_000),
-    }),
-  ]),
-  velocity: z.discriminatedUnion('mode', [
-    z.object({ mode: z.literal('fixed'), kms: z.number().min(0).max(1000) }),
-    z.object({ mode: z.literal('scaled'), factor: z.number().positive().max(100) }),
-    z.object({ mode: z.literal('ignore') }),
-  ]),
-  linkMode: z.enum(['all', 'nearest', 'mutual']).default('all'),
-  chanceTrials: z.number().int().min(0).max(10).default(0),
-  missingVelocity: z.enum(['exclude', 'position-only']).default('exclude'),
-  complexCap: z.number().int().min(2).max(100_000).default(500),
-  name: plainText({ max: 200 }).optional(),
-});
-
-export type LinkRunParams = z.infer<typeof linkRunSchema>;
+export { linkRunSchema, type LinkRunParams } from '@/lib/schemas/link-run-request';
 
 export type RunCatalog = { id: string; name: string; kind: string; rowCount: number };
 
@@ -102,44 +75,6 @@ export async function startLinkRun(projectId: string, userId: string, params: Li
     });
   });
   return { id, status: 'queued' as const };
-}
-
-/**
- * A rough forecast of the work before a run starts: for each pair, the number of candidate
- * pairs expected if sources were spread evenly over the sky area the two catalogs cover.
- */
-export async function estimateLinkRun(projectId: string, params: LinkRunParams) {
-  const chosen = await runCatalogs(projectId, params.catalogIds);
-  const radiusArcsec =
-    params.radius.mode === 'fixed'
-      ? params.radius.arcsec
-      : Math.max(params.radius.minArcsec, 60 * params.radius.factor);
-  const capSr = Math.PI * (radiusArcsec / 206_264.806) ** 2;
-  const pairs = [];
-  let candidates = 0;
-  for (let i = 0; i < chosen.length; i++) {
-    for (let j = i + 1; j < chosen.length; j++) {
-      const nA = chosen[i].rowCount;
-      const nB = chosen[j].rowCount;
-      // The Galactic plane within |b| < 5° is about 0.87 sr: where these tracers live.
-      const expectedCandidates = Math.round((nA * nB * capSr) / 0.87);
-      candidates += expectedCandidates;
-      pairs.push({ catalogA: chosen[i].id, catalogB: chosen[j].id, nA, nB, expectedCandidates });
-    }
-  }
-  const sources = chosen.reduce((s, c) => s + c.rowCount, 0);
-  const repeats = 1 + params.chanceTrials;
-  const workUnits = repeats * (sources + candidates);
-  // About two million sources or candidates a second on this class of machine (bench:match).
-  return {
-    estimate: {
-      sources,
-      pairs,
-      chanceRepeats: params.chanceTrials,
-      workUnits,
-      roughSeconds: Math.max(1, Math.round(workUnits / 2e6 + sources / 2e5)),
-    },
-  };
 }
 
 export type RunJson = {

@@ -5,18 +5,15 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useEffect, useMemo, useState } from 'react';
 import { api } from '@/lib/api-client';
+import { LINK_RUN_LIMITS, linkRunSchema } from '@/lib/schemas/link-run-request';
+import { LimitedField } from './link-run/limited-field';
+import { EstimateWarnings, type EstimateJson } from './link-run/estimate-warnings';
 import type { CatalogJson } from '@/components/tables/catalog-list';
 import { LINK_MODE_WORDS, fmtCount, fmtSeconds } from '@/components/link-runs/format';
 import { runsKey } from '@/components/link-runs/run-list';
-import type {
-  Estimate,
-  LinkMode,
-  MissingVelocity,
-  Run,
-  RunParams,
-} from '@/components/link-runs/types';
+import type { LinkMode, MissingVelocity, Run, RunParams } from '@/components/link-runs/types';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField } from '@/components/ui/field';
 import { EmptyState, ErrorNote, Panel } from '@/components/ui/panel';
 import { TracerBadge } from '@/components/ui/tracer-badge';
 
@@ -55,9 +52,40 @@ const DEFAULT_DRAFT: Draft = {
   complexCap: '500',
 };
 
-/** Limits the server enforces: catalogs per run, and the widest match radius (10°). */
-const MAX_CATALOGS = 8;
-const MAX_RADIUS_ARCSEC = 36_000;
+const L = LINK_RUN_LIMITS;
+const n = (x: number) => x.toLocaleString('en-GB').replace(/,/g, ' ');
+
+/** The limit of each field in words, from the limits the API's request schema applies. */
+function limitsOf(d: Draft) {
+  const perUnit = d.radiusUnit === 'arcmin' ? 60 : 1;
+  const unit = d.radiusUnit === 'arcmin' ? '′' : '″';
+  return {
+    catalogIds: `${L.catalogs.min} to ${L.catalogs.max} catalogs.`,
+    radiusValue: `0 to ${n(L.radiusArcsec.max / perUnit)}${unit} (10°); 0 links only identical positions.`,
+    radiusFactor: `Above 0, at most ${L.scaleFactor.max}.`,
+    radiusMinArcsec: `0 to ${n(L.radiusArcsec.max)}″.`,
+    velocityKms: `0 to ${n(L.velocityKms.max)} km/s.`,
+    velocityFactor: `Above 0, at most ${L.scaleFactor.max}.`,
+    chanceTrials: `Whole number, ${L.chanceTrials.min} to ${L.chanceTrials.max}.`,
+    complexCap: `Whole number, ${L.complexCap.min} to ${n(L.complexCap.max)}.`,
+    name: `At most ${L.name.max} characters, one line.`,
+  };
+}
+
+type FieldKey = keyof ReturnType<typeof limitsOf>;
+
+/** The request field (zod path) each draft field feeds. */
+const FIELD_OF_PATH: Record<string, FieldKey> = {
+  catalogIds: 'catalogIds',
+  'radius.arcsec': 'radiusValue',
+  'radius.factor': 'radiusFactor',
+  'radius.minArcsec': 'radiusMinArcsec',
+  'velocity.kms': 'velocityKms',
+  'velocity.factor': 'velocityFactor',
+  chanceTrials: 'chanceTrials',
+  complexCap: 'complexCap',
+  name: 'name',
+};
 
 /** Milliseconds the form waits after the last change before it asks for a new estimate. */
 const ESTIMATE_DEBOUNCE_MS = 400;
@@ -83,117 +111,55 @@ function draftFrom(params: RunParams, readyIds: Set<string>): Draft {
   };
 }
 
-/** A finite number from a field, or a sentence naming the field and the offending text. */
-function numberIn(
-  text: string,
-  field: string,
-  test: (x: number) => boolean,
-  rule: string,
-): number | string {
-  const x = Number(text.trim());
-  if (text.trim() === '' || !Number.isFinite(x)) return `${field}: “${text}” is not a number.`;
-  return test(x) ? x : `${field}: ${text} — ${rule}.`;
-}
-
-/** The request body of the draft, or every problem with it. */
-function bodyOf(d: Draft): { body: RunParams } | { problems: string[] } {
-  const problems: string[] = [];
-  const take = (v: number | string) => {
-    if (typeof v === 'string') {
-      problems.push(v);
+/**
+ * The request body of the draft, checked by the API's own schema, or the problem of each field:
+ * text that is not a number, or a value outside the field's limit (stated beside the field).
+ */
+function bodyOf(d: Draft): { body: RunParams } | { problems: Partial<Record<FieldKey, string>> } {
+  const problems: Partial<Record<FieldKey, string>> = {};
+  const limits = limitsOf(d);
+  const num = (key: FieldKey, text: string) => {
+    const x = Number(text.trim());
+    if (text.trim() === '' || !Number.isFinite(x)) {
+      problems[key] = `“${text}” is not a number.`;
       return NaN;
     }
-    return v;
+    return x;
   };
-  if (d.catalogIds.length < 2) problems.push('Catalogs: choose at least two ready catalogs.');
-  if (d.catalogIds.length > MAX_CATALOGS) {
-    problems.push(`Catalogs: ${d.catalogIds.length} chosen; a run links at most ${MAX_CATALOGS}.`);
-  }
-  const within = (lo: number, hi: number) => (x: number) => x > lo && x <= hi;
-  let radius: RunParams['radius'];
-  if (d.radiusMode === 'fixed') {
-    const perUnit = d.radiusUnit === 'arcmin' ? 60 : 1;
-    const value = take(
-      numberIn(
-        d.radiusValue,
-        'Match radius',
-        within(0, MAX_RADIUS_ARCSEC / perUnit),
-        `must be above 0 and at most ${MAX_RADIUS_ARCSEC / perUnit} ${d.radiusUnit} (10°)`,
-      ),
-    );
-    radius = { mode: 'fixed', arcsec: value * perUnit };
-  } else {
-    radius = {
-      mode: 'scaled',
-      factor: take(
-        numberIn(d.radiusFactor, 'Size factor', within(0, 100), 'must be above 0 and at most 100'),
-      ),
-      minArcsec: take(
-        numberIn(
-          d.radiusMinArcsec,
-          'Smallest radius',
-          (x) => x >= 0 && x <= MAX_RADIUS_ARCSEC,
-          `must be from 0 to ${MAX_RADIUS_ARCSEC}″`,
-        ),
-      ),
-    };
-  }
-  let velocity: RunParams['velocity'];
-  if (d.velocityMode === 'fixed') {
-    velocity = {
-      mode: 'fixed',
-      kms: take(
-        numberIn(
-          d.velocityKms,
-          'Velocity window',
-          within(0, 1000),
-          'must be above 0 and at most 1000 km/s',
-        ),
-      ),
-    };
-  } else if (d.velocityMode === 'scaled') {
-    velocity = {
-      mode: 'scaled',
-      factor: take(
-        numberIn(
-          d.velocityFactor,
-          'Line-width factor',
-          within(0, 100),
-          'must be above 0 and at most 100',
-        ),
-      ),
-    };
-  } else velocity = { mode: 'ignore' };
-  const integer = (lo: number, hi: number) => (x: number) =>
-    Number.isInteger(x) && x >= lo && x <= hi;
-  const chanceTrials = take(
-    numberIn(
-      d.chanceTrials,
-      'Chance-link repeats',
-      integer(0, 10),
-      'must be a whole number from 0 to 10',
-    ),
-  );
-  const complexCap = take(
-    numberIn(
-      d.complexCap,
-      'Complex size cap',
-      integer(2, 100_000),
-      'must be a whole number from 2 to 100 000',
-    ),
-  );
-  if (problems.length) return { problems };
-  const body: RunParams = {
+  const perUnit = d.radiusUnit === 'arcmin' ? 60 : 1;
+  const body = {
     catalogIds: d.catalogIds,
-    radius,
-    velocity,
+    radius:
+      d.radiusMode === 'fixed'
+        ? { mode: 'fixed' as const, arcsec: num('radiusValue', d.radiusValue) * perUnit }
+        : {
+            mode: 'scaled' as const,
+            factor: num('radiusFactor', d.radiusFactor),
+            minArcsec: num('radiusMinArcsec', d.radiusMinArcsec),
+          },
+    velocity:
+      d.velocityMode === 'fixed'
+        ? { mode: 'fixed' as const, kms: num('velocityKms', d.velocityKms) }
+        : d.velocityMode === 'scaled'
+          ? { mode: 'scaled' as const, factor: num('velocityFactor', d.velocityFactor) }
+          : { mode: 'ignore' as const },
     linkMode: d.linkMode,
-    chanceTrials,
+    chanceTrials: num('chanceTrials', d.chanceTrials),
     missingVelocity: d.missingVelocity,
-    complexCap,
+    complexCap: num('complexCap', d.complexCap),
+    ...(d.name.trim() ? { name: d.name.trim() } : {}),
   };
-  if (d.name.trim()) body.name = d.name.trim();
-  return { body };
+  const parsed = linkRunSchema.safeParse(body);
+  if (parsed.success && Object.keys(problems).length === 0) return { body: parsed.data };
+  for (const issue of parsed.error?.issues ?? []) {
+    const key = FIELD_OF_PATH[issue.path.join('.')];
+    if (key && !problems[key]) {
+      const shown = key === 'catalogIds' ? `${d.catalogIds.length} chosen` : 'Outside the limit';
+      problems[key] =
+        key === 'name' ? issue.message : `${shown}: ${limits[key].replace(/\.$/, '')}.`;
+    }
+  }
+  return { problems };
 }
 
 /** `value` once it has stopped changing for `ms` milliseconds. */
@@ -240,7 +206,7 @@ function EstimateView({
   estimate,
   catalogs,
 }: {
-  estimate: Estimate;
+  estimate: EstimateJson;
   catalogs: Map<string, CatalogJson>;
 }) {
   const name = (id: string) => catalogs.get(id)?.name ?? id;
@@ -254,13 +220,13 @@ function EstimateView({
         about <strong>{fmtSeconds(estimate.roughSeconds)}</strong> of work (
         <span className="num">{fmtCount(Math.round(estimate.workUnits))}</span> work units).
       </p>
-      <table className="w-full text-xs" aria-label="Estimated candidates per catalog pair">
+      <table className="w-full text-xs" aria-label="Expected links per catalog pair">
         <thead className="text-left text-ink-soft">
           <tr>
             <th className="py-1 font-medium">Pair</th>
             <th className="py-1 text-right font-medium">sources A</th>
             <th className="py-1 text-right font-medium">sources B</th>
-            <th className="py-1 text-right font-medium">expected candidates</th>
+            <th className="py-1 text-right font-medium">expected links</th>
           </tr>
         </thead>
         <tbody className="divide-y divide-rule/60">
@@ -271,7 +237,7 @@ function EstimateView({
               </td>
               <td className="num py-1">{fmtCount(p.nA)}</td>
               <td className="num py-1">{fmtCount(p.nB)}</td>
-              <td className="num py-1">{fmtCount(Math.round(p.expectedCandidates))}</td>
+              <td className="num py-1">{fmtCount(Math.round(p.expectedLinks))}</td>
             </tr>
           ))}
         </tbody>
@@ -297,6 +263,8 @@ function FormBody({
   const set = (patch: Partial<Draft>) => setD((old) => ({ ...old, ...patch }));
   const [showProblems, setShowProblems] = useState(false);
   const checked = useMemo(() => bodyOf(d), [d]);
+  const limits = limitsOf(d);
+  const problems = 'problems' in checked ? checked.problems : {};
   const bodyText = 'body' in checked ? JSON.stringify(checked.body) : null;
   const settled = useDebounced(bodyText, ESTIMATE_DEBOUNCE_MS);
   const byId = useMemo(() => new Map(ready.map((c) => [c.id, c])), [ready]);
@@ -304,7 +272,7 @@ function FormBody({
   const estimate = useQuery({
     queryKey: ['link-run-estimate', projectId, settled],
     queryFn: () =>
-      api<{ estimate: Estimate }>(`/api/projects/${projectId}/link-runs/estimate`, {
+      api<{ estimate: EstimateJson }>(`/api/projects/${projectId}/link-runs/estimate`, {
         method: 'POST',
         json: JSON.parse(settled!),
       }),
@@ -347,8 +315,13 @@ function FormBody({
         <Panel title="Catalogs">
           <fieldset>
             <legend className="mb-2 text-sm text-ink-soft">
-              Choose two or more ready catalogs to link.
+              Choose the ready catalogs to link: {limits.catalogIds}
             </legend>
+            {problems.catalogIds && (
+              <p role="alert" className="mb-2 text-xs text-danger">
+                {problems.catalogIds}
+              </p>
+            )}
             <ul className="grid gap-1.5 sm:grid-cols-2">
               {ready.map((c) => (
                 <li key={c.id}>
@@ -389,8 +362,11 @@ function FormBody({
             {d.radiusMode === 'fixed' ? (
               <div className="flex items-end gap-2">
                 <div className="w-40">
-                  <TextField
+                  <LimitedField
+                    id="run-radiusValue"
                     label="Radius"
+                    limit={limits.radiusValue}
+                    error={problems.radiusValue}
                     inputMode="decimal"
                     value={d.radiusValue}
                     onChange={(e) => set({ radiusValue: e.target.value })}
@@ -410,16 +386,22 @@ function FormBody({
             ) : (
               <div className="flex items-end gap-2">
                 <div className="w-40">
-                  <TextField
+                  <LimitedField
+                    id="run-radiusFactor"
                     label="Size factor"
+                    limit={limits.radiusFactor}
+                    error={problems.radiusFactor}
                     inputMode="decimal"
                     value={d.radiusFactor}
                     onChange={(e) => set({ radiusFactor: e.target.value })}
                   />
                 </div>
                 <div className="w-40">
-                  <TextField
+                  <LimitedField
+                    id="run-radiusMinArcsec"
                     label="Smallest radius (″)"
+                    limit={limits.radiusMinArcsec}
+                    error={problems.radiusMinArcsec}
                     inputMode="decimal"
                     value={d.radiusMinArcsec}
                     onChange={(e) => set({ radiusMinArcsec: e.target.value })}
@@ -456,8 +438,11 @@ function FormBody({
             />
             {d.velocityMode === 'fixed' && (
               <div className="w-48">
-                <TextField
+                <LimitedField
+                  id="run-velocityKms"
                   label="Window (km/s)"
+                  limit={limits.velocityKms}
+                  error={problems.velocityKms}
                   inputMode="decimal"
                   value={d.velocityKms}
                   onChange={(e) => set({ velocityKms: e.target.value })}
@@ -466,8 +451,11 @@ function FormBody({
             )}
             {d.velocityMode === 'scaled' && (
               <div className="w-48">
-                <TextField
+                <LimitedField
+                  id="run-velocityFactor"
                   label="Line-width factor"
+                  limit={limits.velocityFactor}
+                  error={problems.velocityFactor}
                   inputMode="decimal"
                   value={d.velocityFactor}
                   onChange={(e) => set({ velocityFactor: e.target.value })}
@@ -507,34 +495,34 @@ function FormBody({
           </fieldset>
           <div className="mt-4 flex flex-wrap gap-4">
             <div className="w-56">
-              <TextField
+              <LimitedField
+                id="run-chanceTrials"
                 label="Chance-link repeats"
-                type="number"
-                min={0}
-                max={10}
-                step={1}
+                limit={limits.chanceTrials}
+                error={problems.chanceTrials}
                 hint="Shifted-catalog repeats that estimate false links; 0 turns it off."
                 value={d.chanceTrials}
                 onChange={(e) => set({ chanceTrials: e.target.value })}
               />
             </div>
             <div className="w-56">
-              <TextField
+              <LimitedField
+                id="run-complexCap"
                 label="Complex size cap"
-                type="number"
-                min={2}
-                max={100000}
-                step={1}
+                limit={limits.complexCap}
+                error={problems.complexCap}
                 hint="Complexes above this many members are flagged for a closer look."
                 value={d.complexCap}
                 onChange={(e) => set({ complexCap: e.target.value })}
               />
             </div>
             <div className="min-w-64 flex-1">
-              <TextField
+              <LimitedField
+                id="run-name"
                 label="Run name (optional)"
+                limit={limits.name}
+                error={problems.name}
                 placeholder="e.g. CO × HII, 60″, ±5 km/s"
-                maxLength={200}
                 value={d.name}
                 onChange={(e) => set({ name: e.target.value })}
               />
@@ -554,6 +542,7 @@ function FormBody({
           ) : estimate.data ? (
             <div className={stale ? 'opacity-60' : ''}>
               <EstimateView estimate={estimate.data.estimate} catalogs={byId} />
+              <EstimateWarnings warnings={estimate.data.estimate.warnings} />
             </div>
           ) : (
             <p className="text-sm text-ink-soft">Estimating…</p>
@@ -562,7 +551,7 @@ function FormBody({
         {showProblems && 'problems' in checked && (
           <ErrorNote>
             <span className="block font-medium">Please correct:</span>
-            {checked.problems.map((p) => (
+            {Object.values(checked.problems).map((p) => (
               <span key={p} className="block">
                 {p}
               </span>

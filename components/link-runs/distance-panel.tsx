@@ -4,7 +4,9 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { api } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
+import { LimitedField } from '@/components/forms/link-run/limited-field';
 import { TextField } from '@/components/ui/field';
+import { distanceOverrideSchema, MAX_OVERRIDE_DIST_KPC } from '@/lib/schemas/distance-override';
 import { ErrorNote, Panel } from '@/components/ui/panel';
 import { fmtWhen } from './format';
 import type { DistanceOverride } from './types';
@@ -35,8 +37,21 @@ export function DistancePanel({
       }),
     onSuccess: () => qc.invalidateQueries({ queryKey: ['complex', runId, complexId] }),
   });
+  const [tried, setTried] = useState(false);
   const value = Number(dist);
-  const valid = dist.trim() !== '' && Number.isFinite(value) && value > 0 && value <= 50;
+  const checked = distanceOverrideSchema.safeParse({
+    distKpc: dist.trim() === '' ? NaN : value,
+    note,
+  });
+  const distIssue = checked.error?.issues.find((i) => i.path[0] === 'distKpc');
+  const noteIssue = checked.error?.issues.find((i) => i.path[0] === 'note');
+  // Told as soon as a typed distance breaks the limit; an empty one only once Save is pressed.
+  const distError =
+    distIssue && (tried || dist.trim() !== '')
+      ? dist.trim() === '' || !Number.isFinite(value)
+        ? `“${dist}” is not a number of kpc.`
+        : `${dist} kpc is outside the limit: above 0, at most ${MAX_OVERRIDE_DIST_KPC} kpc.`
+      : null;
   return (
     <Panel title="Distance">
       <p className="mb-3 text-sm text-ink-soft">
@@ -49,16 +64,19 @@ export function DistancePanel({
           className="space-y-3"
           onSubmit={(e) => {
             e.preventDefault();
-            if (valid) save.mutate(value);
+            setTried(true);
+            if (checked.success) save.mutate(value);
           }}
         >
-          <TextField
+          <LimitedField
+            id="overrideDistKpc"
             label="Distance (kpc)"
             name="overrideDistKpc"
             inputMode="decimal"
             value={dist}
             onChange={(e) => setDist(e.target.value)}
-            hint="Between 0 and 50 kpc."
+            limit={`Above 0, at most ${MAX_OVERRIDE_DIST_KPC} kpc.`}
+            error={distError}
           />
           <TextField
             label="Why"
@@ -68,13 +86,10 @@ export function DistancePanel({
             placeholder="e.g. maser parallax of the HII region"
           />
           <ErrorNote>
-            {save.error?.message ??
-              (dist.trim() !== '' && !valid
-                ? `Distance ${dist} is not a number between 0 and 50 kpc.`
-                : null)}
+            {save.error?.message ?? (tried && noteIssue ? `Why: ${noteIssue.message}` : null)}
           </ErrorNote>
           <div className="flex gap-2">
-            <Button type="submit" disabled={!valid || save.isPending}>
+            <Button type="submit" disabled={save.isPending}>
               Save distance
             </Button>
             {current && (

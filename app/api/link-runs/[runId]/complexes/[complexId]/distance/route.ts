@@ -1,6 +1,7 @@
 import { requireProjectRole } from '@/lib/auth/access';
 import { json, jsonBody, route } from '@/lib/http/handler';
-import { distanceOverrideSchema, setDistanceOverride } from '@/lib/services/analyses';
+import { distanceOverrideSchema } from '@/lib/schemas/distance-override';
+import { setDistanceOverride } from '@/lib/services/analyses';
 import { complexIdSchema } from '@/lib/services/complexes';
 import { runProject } from '@/lib/services/link-runs';
 

@@ -13,3 +13,5 @@ export const distanceOverrideSchema = z.object({
   distKpc: z.number().positive().max(MAX_OVERRIDE_DIST_KPC).nullable(),
   note: plainText({ max: MAX_OVERRIDE_NOTE_CHARS, multiline: true }).default(''),
 });
+
+export type DistanceOverride = z.infer<typeof distanceOverrideSchema>;

@@ -1,5 +1,4 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
-import { z } from 'zod';
 import type { RowDataPacket } from 'mysql2';
 import { db, pool, type Tx } from '@/db/client';
 import {
@@ -16,7 +15,7 @@ import { ARM_MODEL_PRESETS } from '@/lib/astro/arms';
 import { ROTATION_CURVE_PRESETS } from '@/lib/astro/rotation-curves';
 import { newId } from '@/lib/auth/secrets';
 import { HttpError, notFound } from '@/lib/http/errors';
-import { plainText } from '@/lib/schemas/text';
+import type { DistanceOverride } from '@/lib/schemas/distance-override';
 import {
   runOrderingAnalysis,
   type OrderingComplex,
@@ -344,17 +343,12 @@ export async function deleteAnalysis(analysisId: string, userId: string) {
   });
 }
 
-export const distanceOverrideSchema = z.object({
-  distKpc: z.number().positive().max(50).nullable(),
-  note: plainText({ max: 2000, multiline: true }).default(''),
-});
-
 /** Sets (or clears, with null) an editor's distance for a complex; recorded in the audit log. */
 export async function setDistanceOverride(
   runId: string,
   complexId: number,
   userId: string,
-  input: z.infer<typeof distanceOverrideSchema>,
+  input: DistanceOverride,
 ) {
   const run = await requireDoneRun(runId);
   const [c] = await db

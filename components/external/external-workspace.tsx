@@ -206,7 +206,7 @@ function AnalysisList({
       </p>
     );
   return (
-    <div className="overflow-x-auto rounded-lg border border-rule bg-white/70">
+    <div className="relative overflow-x-auto rounded-lg border border-rule bg-white/70">
       <table className="w-full text-sm" aria-label="External-galaxy analyses">
         <thead className="border-b border-rule text-left text-xs tracking-wide text-ink-soft">
           <tr>

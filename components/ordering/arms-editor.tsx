@@ -34,7 +34,7 @@ export function ArmsEditor({
     onChange(rows.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
   return (
     <div className="space-y-2">
-      <div className="overflow-x-auto rounded-md border border-rule bg-white/70">
+      <div className="relative overflow-x-auto rounded-md border border-rule bg-white/70">
         <table className="w-full text-sm" aria-label="Custom arms">
           <thead className="border-b border-rule text-left text-xs text-ink-soft">
             <tr>

@@ -89,7 +89,7 @@ async function seedRun(projectId: string, editorId: string) {
   // A few reviews, as the team would leave them.
   const page = await complexesPage(
     run.id,
-    complexesQuerySchema.parse({ sort: 'size', dir: 'desc', pageSize: 6 }),
+    complexesQuerySchema.parse({ sort: 'size', dir: 'desc', pageSize: '6' }),
   );
   const verdicts = [
     ['accepted', 'CO, HII and OB members agree in velocity; a clear star-forming complex.'],

@@ -86,7 +86,7 @@ async function main() {
   for (const sort of sortable) {
     for (const dir of ['asc', 'desc']) {
       for (const page of [1, 2, 100]) {
-        const q = rowsQuerySchema.parse({ sort, dir, page, pageSize: 50 });
+        const q = rowsQuerySchema.parse({ sort, dir, page: String(page), pageSize: '50' });
         const s = performance.now();
         await catalogRowsPage(catalog.id, q);
         times.push(performance.now() - s);

@@ -141,7 +141,10 @@ async function main() {
     for (const dir of ['asc', 'desc']) {
       for (const page of [1, 2, 50]) {
         const s = performance.now();
-        await complexesPage(mid.id, complexesQuerySchema.parse({ sort, dir, page, pageSize: 50 }));
+        await complexesPage(
+          mid.id,
+          complexesQuerySchema.parse({ sort, dir, page: String(page), pageSize: '50' }),
+        );
         times.push(performance.now() - s);
       }
     }

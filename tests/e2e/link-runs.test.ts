@@ -134,7 +134,8 @@ describe('link runs in the browser', () => {
     await table.locator('tbody tr').first().waitFor();
     expect(await table.locator('tbody tr').count()).toBe(30);
     expect(await page.getByTestId('complexes-range').textContent()).toBe('1–30 of 30');
-    const sizes = await table.locator('tbody tr td:nth-child(3)').allTextContents();
+    // Columns: selection, #, name, size.
+    const sizes = await table.locator('tbody tr td:nth-child(4)').allTextContents();
     expect(new Set(sizes)).toEqual(new Set(['2']));
 
     // Distance and arm come from the run's latest ordering analysis: none yet, then one.

@@ -182,11 +182,15 @@ describe("each complex's distance and arm from the run's latest analysis", () =>
     const conn = await mysql.createConnection(process.env.DATABASE_URL!);
     try {
       expect((await t.owner.delete(`/api/projects/${t.projectId}`)).status).toBeLessThan(300);
-      const [rows] = await conn.query<mysql.RowDataPacket[]>(
-        'SELECT COUNT(*) AS n FROM analysis_complexes WHERE run_id = ?',
-        [runId],
-      );
-      expect(Number(rows[0].n)).toBe(0);
+      // The project is gone at once; a job removes its rows (lib/jobs/project-delete.ts).
+      const left = async () => {
+        const [rows] = await conn.query<mysql.RowDataPacket[]>(
+          'SELECT COUNT(*) AS n FROM analysis_complexes WHERE run_id = ?',
+          [runId],
+        );
+        return Number(rows[0].n);
+      };
+      await expect.poll(left, { timeout: 60_000, interval: 500 }).toBe(0);
     } finally {
       await conn.end();
     }

@@ -49,7 +49,7 @@ describe('orderingSettings', () => {
 
   it('refuses an unknown preset, naming it', () => {
     expect(() => orderingSettings(request({ arms: { preset: 'no-such-arms' } }))).toThrow(
-      /arms.preset: no arm model "no-such-arms"/,
+      /"arms",\s*"preset"[\s\S]*No such arm model; use one of reid-2014/,
     );
   });
 });

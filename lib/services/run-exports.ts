@@ -238,10 +238,6 @@ async function linksTable(
       ucd: 'meta.id;meta.dataset',
       description: 'id of catalog A',
     }),
-    text('catalog_a_name', (s) => sqlLiteral(s.a!.name), {
-      ucd: 'meta.title;meta.dataset',
-      description: 'name of catalog A',
-    }),
     int('row_a', 'l.row_a', {
       ucd: 'meta.record',
       description: '1-based data row of catalog A as uploaded',
@@ -249,10 +245,6 @@ async function linksTable(
     uuid('catalog_b', 'l.catalog_b', {
       ucd: 'meta.id;meta.dataset',
       description: 'id of catalog B',
-    }),
-    text('catalog_b_name', (s) => sqlLiteral(s.b!.name), {
-      ucd: 'meta.title;meta.dataset',
-      description: 'name of catalog B',
     }),
     int('row_b', 'l.row_b', {
       ucd: 'meta.record',
@@ -271,6 +263,15 @@ async function linksTable(
     int('complex_id', 'l.complex_id', {
       ucd: 'meta.id.parent',
       description: 'the complex the link belongs to',
+    }),
+    // The names follow the documented leading columns (README), which stay in their order.
+    text('catalog_a_name', (s) => sqlLiteral(s.a!.name), {
+      ucd: 'meta.title;meta.dataset',
+      description: 'name of catalog A',
+    }),
+    text('catalog_b_name', (s) => sqlLiteral(s.b!.name), {
+      ucd: 'meta.title;meta.dataset',
+      description: 'name of catalog B',
     }),
     num('reliability', 'l.reliability', 'fraction', {
       ucd: 'stat.probability',
@@ -607,7 +608,7 @@ export async function runMethods(runId: string) {
       separation: 'great-circle separation, Vincenty formula (Vincenty 1975)',
       rows: '1-based data rows of each file as uploaded (header lines not counted)',
       exportColumns:
-        'links: catalog_a, catalog_a_name, row_a, … then a_*, b_* of each side; sources: catalog_id, catalog_name, row, … With columns=original, every uploaded column follows as a_<column>, b_<column> (links) or <catalog>_<column> (sources), text exactly as uploaded, empty where a row’s catalog has no such column; a name already taken gets _2.',
+        'links: catalog_a, row_a, catalog_b, row_b, separation_arcsec, delta_v_kms, complex_id, catalog_a_name, catalog_b_name, … then a_*, b_* of each side; sources: catalog_id, catalog_name, row, … With columns=original, every uploaded column follows as a_<column>, b_<column> (links) or <catalog>_<column> (sources), text exactly as uploaded, empty where a row’s catalog has no such column; a name already taken gets _2.',
     },
     exportPrecision: {
       rule: 'shortest decimal that reads back as the stored double, rounded half away from zero to the decimal places of its quantity, trailing zeros dropped (docs/methods.md, Exports)',

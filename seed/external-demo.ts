@@ -24,6 +24,7 @@ import { updateProject } from '@/lib/services/projects';
 import { ensureDemoProject } from '@/lib/services/seed-accounts';
 import { getUserByEmail } from '@/lib/services/users';
 import { DEMO_ACCOUNTS } from './demo-accounts';
+import { drainJobs } from './drain-jobs';
 import {
   DEFAULT_EXTERNAL_PARAMS,
   generateExternalGalaxy,
@@ -149,7 +150,7 @@ export async function seedExternalDemo(): Promise<string> {
     );
     catalogIds.push(created.id);
   }
-  await runWorker({ once: true });
+  await drainJobs();
 
   const [done] = await db
     .select({ id: analyses.id })

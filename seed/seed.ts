@@ -1,10 +1,9 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { closeDb, db } from '@/db/client';
-import { analyses, catalogs, jobs, linkRuns } from '@/db/schema';
+import { analyses, catalogs, linkRuns } from '@/db/schema';
 import { env } from '@/lib/env';
-import { runWorker } from '@/lib/jobs/worker';
 import { analysisSchema, startAnalysis } from '@/lib/services/analyses';
 import { createCatalog } from '@/lib/services/catalogs';
 import { complexesPage, complexesQuerySchema, reviewComplex } from '@/lib/services/complexes';
@@ -13,6 +12,7 @@ import { updateProject } from '@/lib/services/projects';
 import { getUserByEmail } from '@/lib/services/users';
 import { ensureDemoAccounts } from '@/lib/services/seed-accounts';
 import { DEMO_CATALOGS } from './demo-catalogs';
+import { drainJobs } from './drain-jobs';
 import { seedExternalDemo } from './external-demo';
 import { DEFAULT_MODEL, generateGalaxy, writeDemoFiles } from './generator';
 
@@ -20,21 +20,6 @@ import { DEFAULT_MODEL, generateGalaxy, writeDemoFiles } from './generator';
  * Runs every queued job to its end in this process, through the worker's own code, then waits
  * for any job that a worker of the running app claimed first (as under `npm test`).
  */
-async function drainJobs() {
-  await runWorker({ once: true });
-  const deadline = Date.now() + 15 * 60_000;
-  for (;;) {
-    const [open] = await db
-      .select({ id: jobs.id })
-      .from(jobs)
-      .where(inArray(jobs.status, ['queued', 'running']))
-      .limit(1);
-    if (!open) return;
-    if (Date.now() > deadline) throw new Error(`job ${open.id} did not finish within 15 minutes`);
-    await new Promise((resolve) => setTimeout(resolve, 500));
-  }
-}
-
 async function seedCatalogs(projectId: string, editorId: string) {
   const dir = path.resolve(env().LANEWISE_DATA_DIR, 'demo-source');
   if (!fs.existsSync(path.join(dir, 'truth.json'))) {

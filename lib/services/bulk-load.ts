@@ -14,7 +14,7 @@ export function tsvCell(v: string | number | null | undefined): string {
 }
 
 /**
- * Stores rows with LOAD DATA LOCAL INFILE fed from memory: several times faster than multi-row
+ * Stores rows with LOAD DATA LOCAL INFILE fed from an in-process stream (no file on disk): several times faster than multi-row
  * INSERT statements for millions of rows. `lines` are already TSV (see {@link tsvCell}): one
  * string per row, or the whole text with a newline after each row.
  * `table` and `columns` are our own identifiers, never user input.

@@ -1,7 +1,7 @@
 /**
  * The demo galaxy's own rotation curve, deliberately none of the analysis presets: an arctangent
  * rise (the arctan model of Courteau 1997, AJ 114, 2402) with a gentle linear outer decline (the
- * Milky Way's is about −1.7 km/s/kpc, Eilers et al. 2019, ApJ 871, 120; from memory),
+ * Milky Way's is about −1.7 km/s/kpc, Eilers et al. 2019, ApJ 871, 120),
  *   Θ(R) = V_a (2/π) arctan(R / r_t) + g (R − R0),
  * with V_a set so that Θ(R0) = Θ0. It is tabulated on a fine grid and used as a 'table' curve of
  * `@/lib/astro/rotation-curves`, so the truth file carries the exact curve the sources were made

@@ -18,7 +18,7 @@ function coDispersionKms(radiusPc: number): number {
   return 0.72 * Math.sqrt(radiusPc);
 }
 
-/** Typical HI cloud line FWHM (km/s) and radio recombination-line FWHM of HII regions (from memory). */
+/** Median line FWHM (km/s) of the demo's HI clouds and of its HII regions' radio recombination lines: invented values of a plausible size, not measurements. */
 const HI_FWHM_MEDIAN_KMS = 8;
 const HII_RRL_FWHM_MEDIAN_KMS = 24;
 

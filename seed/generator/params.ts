@@ -109,7 +109,7 @@ export type ModelParams = {
   tracers: Record<Tracer, TracerParams>;
 };
 
-/** Pitch angle (deg) of the demo's arms, near the Milky Way's ≈ 12–13° (Vallée 2015; from memory). */
+/** Pitch angle (deg) of the demo's arms, near the Milky Way's ≈ 12–13° (Vallée 2015, MNRAS 450, 4277). */
 const PITCH_DEG = 14;
 
 /**
@@ -144,7 +144,7 @@ export const DEFAULT_ARMS: ArmSpec[] = [
  * pattern speed of 18.5 km/s/kpc that puts corotation at ≈ 12.6 kpc (inside the outer ends of
  * the arms), young stars 10 Myr after a complex's birth (within the 4–13 Myr of Egusa et al.
  * 2009, ApJ 697, 1870) with the cloud dispersed 2 Myr later (Kruijssen et al. 2019, Nature 569,
- * 519; from memory), and streaming of 10 km/s on the arms. The median young-star minus gas phase
+ * 519), and streaming of 10 km/s on the arms. The median young-star minus gas phase
  * is then ≈ 7.4 Myr and the separation across the arms ≈ 100–300 pc inside corotation, as
  * measured in the Milky Way (Vallée 2014, AJ 148, 5; Hou & Han 2015, MNRAS 454, 626).
  */
